@@ -1,0 +1,42 @@
+import { defineConfig } from "vitest/config";
+import react from "@vitejs/plugin-react";
+import { fileURLToPath } from "node:url";
+
+const alias = {
+  "@shared": fileURLToPath(new URL("./shared", import.meta.url)),
+  "@": fileURLToPath(new URL("./src", import.meta.url)),
+};
+
+// Three projects: pure domain code, the API against a real PostgreSQL, and client components.
+export default defineConfig({
+  test: {
+    projects: [
+      {
+        resolve: { alias },
+        test: { name: "shared", environment: "node", include: ["tests/shared/**/*.test.ts"] },
+      },
+      {
+        resolve: { alias },
+        test: {
+          name: "server",
+          environment: "node",
+          include: ["tests/server/**/*.test.ts"],
+          setupFiles: ["tests/setup/server.ts"],
+          fileParallelism: false,
+          testTimeout: 30_000,
+          hookTimeout: 60_000,
+        },
+      },
+      {
+        plugins: [react()],
+        resolve: { alias },
+        test: {
+          name: "client",
+          environment: "happy-dom",
+          include: ["tests/client/**/*.test.tsx"],
+          setupFiles: ["tests/setup/client.ts"],
+        },
+      },
+    ],
+  },
+});

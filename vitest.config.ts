@@ -37,6 +37,19 @@ export default defineConfig({
           setupFiles: ["tests/setup/client.ts"],
         },
       },
+      {
+        resolve: { alias },
+        test: {
+          name: "e2e",
+          environment: "node",
+          include: ["tests/e2e/**/*.test.ts"],
+          // Browser journeys run against their own database seeded with the demo neighbourhood.
+          env: process.env.E2E_DATABASE_URL ? { DATABASE_URL: process.env.E2E_DATABASE_URL } : {},
+          fileParallelism: false,
+          testTimeout: 60_000,
+          hookTimeout: 120_000,
+        },
+      },
     ],
   },
 });

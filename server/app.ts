@@ -1,0 +1,93 @@
+/**
+ * createApp(): the Express application without `listen`, so tests drive it with supertest
+ * and server/index.ts owns the process.
+ */
+import express, { type Express } from "express";
+import helmet from "helmet";
+import { pinoHttp } from "pino-http";
+import { randomUUID } from "node:crypto";
+import { existsSync } from "node:fs";
+import path from "node:path";
+import { env, tileOrigin } from "./config/env";
+import { logger } from "./lib/logger";
+import { apiNotFound, errorHandler } from "./middleware/error-handler";
+import { apiRouter } from "./routes";
+
+export interface AppOptions {
+  /** Serve the built client from this folder (absent in API tests). */
+  clientDist?: string;
+  /** Log each request (off in tests to keep output readable). */
+  requestLogging?: boolean;
+}
+
+export function createApp(options: AppOptions = {}): Express {
+  const e = env();
+  const app = express();
+  app.disable("x-powered-by");
+  if (e.TRUST_PROXY) app.set("trust proxy", 1);
+
+  const tiles = tileOrigin(e);
+  app.use(
+    helmet({
+      contentSecurityPolicy: {
+        useDefaults: false,
+        directives: {
+          "default-src": ["'self'"],
+          "script-src": ["'self'"],
+          // React and Leaflet set style properties; no inline <style> from users.
+          "style-src": ["'self'", "'unsafe-inline'"],
+          "img-src": ["'self'", "data:", ...(tiles ? [tiles] : [])],
+          "font-src": ["'self'"],
+          "connect-src": ["'self'"],
+          "object-src": ["'none'"],
+          "base-uri": ["'none'"],
+          "form-action": ["'self'"],
+          "frame-ancestors": ["'none'"],
+          ...(e.NODE_ENV === "production" ? { "upgrade-insecure-requests": [] } : {}),
+        },
+      },
+      strictTransportSecurity: e.NODE_ENV === "production",
+    }),
+  );
+
+  app.use(
+    pinoHttp({
+      logger,
+      genReqId: (req, res) => {
+        const id = randomUUID();
+        res.setHeader("X-Request-Id", id);
+        return id;
+      },
+      autoLogging: options.requestLogging ?? true,
+      customLogLevel: (_req, res, err) => (err || res.statusCode >= 500 ? "error" : res.statusCode >= 400 ? "info" : "debug"),
+      serializers: {
+        req: (req) => ({ id: req.id, method: req.method, url: req.url }),
+        res: (res) => ({ statusCode: res.statusCode }),
+      },
+    }),
+  );
+
+  app.use("/api", (_req, res, next) => {
+    // Signed-in answers must never sit in a shared or browser cache.
+    res.set("Cache-Control", "no-store");
+    next();
+  });
+  app.use("/api", express.json({ limit: "100kb", strict: true }));
+  app.use("/api", apiRouter());
+  app.use("/api", apiNotFound);
+
+  const dist = options.clientDist ? path.resolve(options.clientDist) : undefined;
+  if (dist && existsSync(path.join(dist, "index.html"))) {
+    app.use("/assets", express.static(path.join(dist, "assets"), { immutable: true, maxAge: "365d", fallthrough: false }));
+    app.use(express.static(dist, { index: false, maxAge: "1h" }));
+    // Client-side routes: every other GET gets the app shell.
+    app.use((req, res, next) => {
+      if (req.method !== "GET" && req.method !== "HEAD") return next();
+      res.set("Cache-Control", "no-cache");
+      res.sendFile(path.join(dist, "index.html"));
+    });
+  }
+
+  app.use(errorHandler);
+  return app;
+}

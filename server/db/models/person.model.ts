@@ -1,0 +1,57 @@
+import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from "sequelize";
+
+export type Role = "resident" | "steward" | "coordinator" | "gardener";
+
+export class PersonModel extends Model<InferAttributes<PersonModel>, InferCreationAttributes<PersonModel>> {
+  declare id: CreationOptional<number>;
+  declare email: string;
+  declare name: string;
+  declare passwordHash: string | null;
+  declare status: CreationOptional<"invited" | "active" | "disabled">;
+  declare roles: CreationOptional<Role[]>;
+  declare householdId: number | null;
+  declare isVolunteer: CreationOptional<boolean>;
+  declare bikeLoadKg: number | null;
+  declare startLat: number | null;
+  declare startLng: number | null;
+  declare passwordChangedAt: Date | null;
+  declare createdAt: CreationOptional<Date>;
+  declare updatedAt: CreationOptional<Date>;
+
+  static initModel(sequelize: Sequelize) {
+    PersonModel.init(
+      {
+        id: { type: DataTypes.INTEGER, primaryKey: true, autoIncrement: true },
+        email: { type: DataTypes.CITEXT, allowNull: false, unique: true },
+        name: { type: DataTypes.TEXT, allowNull: false },
+        passwordHash: { type: DataTypes.TEXT },
+        status: { type: DataTypes.TEXT, allowNull: false, defaultValue: "active" },
+        roles: { type: DataTypes.ARRAY(DataTypes.TEXT), allowNull: false, defaultValue: [] },
+        householdId: { type: DataTypes.INTEGER },
+        isVolunteer: { type: DataTypes.BOOLEAN, allowNull: false, defaultValue: false },
+        bikeLoadKg: { type: DataTypes.DECIMAL(6, 1) },
+        startLat: { type: DataTypes.DOUBLE },
+        startLng: { type: DataTypes.DOUBLE },
+        passwordChangedAt: { type: DataTypes.DATE },
+        createdAt: DataTypes.DATE,
+        updatedAt: DataTypes.DATE,
+      },
+      { sequelize, tableName: "people", underscored: true },
+    );
+  }
+}
+
+export class DigesterStewardModel extends Model<InferAttributes<DigesterStewardModel>, InferCreationAttributes<DigesterStewardModel>> {
+  declare digesterId: number;
+  declare personId: number;
+
+  static initModel(sequelize: Sequelize) {
+    DigesterStewardModel.init(
+      {
+        digesterId: { type: DataTypes.INTEGER, primaryKey: true },
+        personId: { type: DataTypes.INTEGER, primaryKey: true },
+      },
+      { sequelize, tableName: "digester_stewards", underscored: true, timestamps: false },
+    );
+  }
+}

@@ -1,0 +1,41 @@
+import { Sequelize } from "sequelize";
+import pg from "pg";
+import { env } from "../config/env";
+import { logger } from "../lib/logger";
+
+// NUMERIC columns come back from pg as strings; our quantities fit a double comfortably.
+pg.types.setTypeParser(pg.types.builtins.NUMERIC, (v) => (v === null ? null : Number(v)));
+// Dates (no time) stay plain ISO strings: a calendar day, not a moment.
+pg.types.setTypeParser(pg.types.builtins.DATE, (v) => v);
+
+let instance: Sequelize | undefined;
+
+/** The process's single Sequelize instance (created on first use). */
+export function sequelize(): Sequelize {
+  if (instance) return instance;
+  const e = env();
+  instance = new Sequelize(e.DATABASE_URL, {
+    dialect: "postgres",
+    logging: false,
+    pool: { max: e.DATABASE_POOL_MAX, min: 0, idle: 10_000, acquire: 5_000 },
+    dialectOptions: {
+      // Fail fast while the database is down rather than hanging requests.
+      connectionTimeoutMillis: 3_000,
+      statement_timeout: 15_000,
+    },
+    hooks: {
+      afterConnect(connection) {
+        // Without an error listener a database restart would crash the process.
+        (connection as unknown as pg.Client).on("error", (err) => logger.warn({ err: err.message }, "database connection error"));
+      },
+    },
+  });
+  return instance;
+}
+
+export async function closeDatabase() {
+  if (!instance) return;
+  const s = instance;
+  instance = undefined;
+  await s.close();
+}

@@ -1,0 +1,5 @@
+import * as repo from "./digesters.repository";
+
+export function publicDigesters() {
+  return repo.listPublicDigesters();
+}

@@ -1,0 +1,61 @@
+import { NavLink, Outlet, ScrollRestoration } from "react-router-dom";
+import { Suspense } from "react";
+import { cn } from "@/lib/cn";
+import { paths } from "@/config/paths";
+import { Spinner } from "@/components/ui";
+
+const navItems = [
+  { to: paths.home(), label: "Home", end: true },
+  { to: paths.map(), label: "Digester map", end: false },
+];
+
+function navClass({ isActive }: { isActive: boolean }) {
+  return cn(
+    "inline-flex min-h-11 items-center rounded-md px-3 font-bold no-underline text-primary-foreground hover:bg-primary-foreground/15",
+    isActive && "underline decoration-2 underline-offset-8",
+  );
+}
+
+/** Skip link, header with navigation, the page, and a footer. */
+export function AppShell() {
+  return (
+    <div className="flex min-h-dvh flex-col">
+      <a
+        href="#main"
+        className="sr-only z-50 rounded-md bg-surface p-3 font-bold text-primary focus:not-sr-only focus:fixed focus:top-2 focus:left-2"
+      >
+        Skip to main content
+      </a>
+      <header className="bg-primary text-primary-foreground" data-print-hide>
+        <div className="mx-auto flex max-w-6xl flex-wrap items-center justify-between gap-2 px-4 py-2">
+          <NavLink to={paths.home()} className="inline-flex min-h-11 items-center gap-2 text-xl font-bold no-underline text-primary-foreground">
+            <img src="/favicon.svg" alt="" width={28} height={28} />
+            Hearthloop
+          </NavLink>
+          <nav aria-label="Main">
+            <ul className="flex flex-wrap gap-1">
+              {navItems.map((item) => (
+                <li key={item.to}>
+                  <NavLink to={item.to} end={item.end} className={navClass}>
+                    {item.label}
+                  </NavLink>
+                </li>
+              ))}
+            </ul>
+          </nav>
+        </div>
+      </header>
+      <main id="main" tabIndex={-1} className="mx-auto w-full max-w-6xl flex-1 px-4 py-6 focus:outline-none">
+        <Suspense fallback={<Spinner label="Loading the page" />}>
+          <Outlet />
+        </Suspense>
+      </main>
+      <footer className="border-t border-border bg-surface-muted" data-print-hide>
+        <div className="mx-auto max-w-6xl px-4 py-4 text-base text-muted">
+          Hearthloop gives estimates. Local gas, building and waste rules and licensed practitioners decide.
+        </div>
+      </footer>
+      <ScrollRestoration />
+    </div>
+  );
+}

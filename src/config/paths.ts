@@ -1,0 +1,5 @@
+/** Route builders: the one place URLs of the client are spelled. */
+export const paths = {
+  home: () => "/",
+  map: () => "/map",
+} as const;

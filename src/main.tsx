@@ -1,0 +1,18 @@
+import { StrictMode } from "react";
+import { createRoot } from "react-dom/client";
+import "@fontsource/atkinson-hyperlegible/400.css";
+import "@fontsource/atkinson-hyperlegible/700.css";
+import "./index.css";
+import { AppProvider } from "./app/provider";
+import { AppRouter } from "./app/router";
+
+const container = document.getElementById("root");
+if (!container) throw new Error("The page has no #root element.");
+
+createRoot(container).render(
+  <StrictMode>
+    <AppProvider>
+      <AppRouter />
+    </AppProvider>
+  </StrictMode>,
+);

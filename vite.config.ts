@@ -1,0 +1,26 @@
+import { defineConfig } from "vite";
+import react from "@vitejs/plugin-react";
+import tailwindcss from "@tailwindcss/vite";
+import { fileURLToPath } from "node:url";
+
+export default defineConfig({
+  plugins: [react(), tailwindcss()],
+  resolve: {
+    alias: {
+      "@shared": fileURLToPath(new URL("./shared", import.meta.url)),
+      "@": fileURLToPath(new URL("./src", import.meta.url)),
+    },
+  },
+  server: {
+    host: "127.0.0.1",
+    proxy: { "/api": "http://127.0.0.1:3000" },
+  },
+  preview: {
+    host: "127.0.0.1",
+    proxy: { "/api": "http://127.0.0.1:3000" },
+  },
+  build: {
+    sourcemap: false,
+    chunkSizeWarningLimit: 600,
+  },
+});

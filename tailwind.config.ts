@@ -69,14 +69,7 @@ export default {
         info: role("info"),
       },
       fontFamily: {
-        sans: [
-          '"Atkinson Hyperlegible"',
-          "system-ui",
-          "-apple-system",
-          '"Segoe UI"',
-          "Roboto",
-          "sans-serif",
-        ],
+        sans: ['"Atkinson Hyperlegible"', "system-ui", "-apple-system", '"Segoe UI"', "Roboto", "sans-serif"],
       },
     },
   },

@@ -24,7 +24,7 @@ export type BadgeProps = Omit<ComponentProps<"span">, "children"> & {
 
 export function Badge({ tone = "neutral", icon, className, children, ...props }: BadgeProps) {
   const { classes, icon: DefaultIcon } = tones[tone];
-  const shownIcon = icon === undefined ? (DefaultIcon ? <DefaultIcon /> : null) : icon;
+  const shownIcon = icon === undefined ? DefaultIcon ? <DefaultIcon /> : null : icon;
   return (
     <span
       className={cn(
@@ -35,7 +35,11 @@ export function Badge({ tone = "neutral", icon, className, children, ...props }:
       )}
       {...props}
     >
-      {shownIcon ? <span aria-hidden="true" className="inline-flex">{shownIcon}</span> : null}
+      {shownIcon ? (
+        <span aria-hidden="true" className="inline-flex">
+          {shownIcon}
+        </span>
+      ) : null}
       {children}
     </span>
   );

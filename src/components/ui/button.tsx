@@ -25,11 +25,7 @@ const sizeClasses: Record<ButtonSize, string> = {
 };
 
 /** Class string of a button, for elements that must look like one but are not `<button>` (router links). */
-export function buttonClasses(
-  variant: ButtonVariant = "primary",
-  size: ButtonSize = "md",
-  className?: string,
-): string {
+export function buttonClasses(variant: ButtonVariant = "primary", size: ButtonSize = "md", className?: string): string {
   return cn(base, variantClasses[variant], sizeClasses[size], className);
 }
 

@@ -9,7 +9,15 @@ export type CheckboxProps = Omit<ComponentProps<"input">, "type"> & {
 };
 
 /** A checkbox with its own label; the whole row (≥ 44 px tall) toggles it. */
-export function Checkbox({ label, hint, error, id, className, "aria-describedby": ownDescribedBy, ...props }: CheckboxProps) {
+export function Checkbox({
+  label,
+  hint,
+  error,
+  id,
+  className,
+  "aria-describedby": ownDescribedBy,
+  ...props
+}: CheckboxProps) {
   const generatedId = useId();
   const inputId = id ?? generatedId;
   const hintId = `${inputId}-hint`;

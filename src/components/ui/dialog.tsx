@@ -117,7 +117,14 @@ export function Dialog({
                 </p>
               ) : null}
             </div>
-            <Button type="button" variant="ghost" size="sm" onClick={onClose} aria-label={closeLabel} className="-mt-1 -mr-2 shrink-0">
+            <Button
+              type="button"
+              variant="ghost"
+              size="sm"
+              onClick={onClose}
+              aria-label={closeLabel}
+              className="-mt-1 -mr-2 shrink-0"
+            >
               <X aria-hidden="true" className="size-6" />
             </Button>
           </div>

@@ -32,7 +32,8 @@ export function Field({ label, hint, error, required, id, className, children }:
   const hintId = `${controlId}-hint`;
   const errorId = `${controlId}-error`;
   const hasError = error !== undefined && error !== null && error !== false && error !== "";
-  const ownDescribedBy = typeof childProps["aria-describedby"] === "string" ? childProps["aria-describedby"] : undefined;
+  const ownDescribedBy =
+    typeof childProps["aria-describedby"] === "string" ? childProps["aria-describedby"] : undefined;
   const describedBy = [ownDescribedBy, hint ? hintId : undefined, hasError ? errorId : undefined]
     .filter(Boolean)
     .join(" ");

@@ -19,7 +19,11 @@ export function PageHeader({ title, description, actions, className, children }:
         {description ? <p className="text-muted">{description}</p> : null}
         {children}
       </div>
-      {actions ? <div className="flex flex-wrap gap-2" data-print-hide>{actions}</div> : null}
+      {actions ? (
+        <div className="flex flex-wrap gap-2" data-print-hide>
+          {actions}
+        </div>
+      ) : null}
     </header>
   );
 }

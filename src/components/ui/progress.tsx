@@ -43,9 +43,7 @@ export function Progress({ label, value, max = 100, valueText, id, className }: 
           "h-3 w-full appearance-none overflow-hidden rounded-full border border-border bg-surface-muted",
           "[&::-webkit-progress-bar]:bg-surface-muted [&::-webkit-progress-value]:bg-primary [&::-moz-progress-bar]:bg-primary",
         )}
-      >
-        {text}
-      </progress>
+      />
     </div>
   );
 }

@@ -18,11 +18,7 @@ export type SpinnerProps = Omit<ComponentProps<"span">, "children"> & {
 
 export function Spinner({ label, size = "md", className, ...props }: SpinnerProps) {
   return (
-    <span
-      role={label ? "status" : undefined}
-      className={cn("inline-flex items-center gap-2", className)}
-      {...props}
-    >
+    <span role={label ? "status" : undefined} className={cn("inline-flex items-center gap-2", className)} {...props}>
       {/* motion-safe: people who ask for reduced motion get a still icon; the label carries the meaning. */}
       <LoaderCircle aria-hidden="true" className={cn("shrink-0 motion-safe:animate-spin", sizeClasses[size])} />
       {label ? <span className="sr-only">{label}</span> : null}

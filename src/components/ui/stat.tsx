@@ -16,7 +16,11 @@ export function Stat({ label, value, unit, hint, icon, className }: StatProps) {
   return (
     <dl className={cn("flex flex-col gap-1 rounded-lg border border-border bg-surface p-4", className)}>
       <dt className="flex items-center gap-2 text-base font-bold text-muted">
-        {icon ? <span aria-hidden="true" className="inline-flex [&_svg]:size-5">{icon}</span> : null}
+        {icon ? (
+          <span aria-hidden="true" className="inline-flex [&_svg]:size-5">
+            {icon}
+          </span>
+        ) : null}
         {label}
       </dt>
       <dd className="text-3xl leading-tight font-bold tabular-nums">

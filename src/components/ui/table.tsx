@@ -35,7 +35,12 @@ export function THead({ className, ...props }: ComponentProps<"thead">) {
 }
 
 export function TBody({ className, ...props }: ComponentProps<"tbody">) {
-  return <tbody className={cn("[&>tr:not(:last-child)]:border-b [&>tr:not(:last-child)]:border-border", className)} {...props} />;
+  return (
+    <tbody
+      className={cn("[&>tr:not(:last-child)]:border-b [&>tr:not(:last-child)]:border-border", className)}
+      {...props}
+    />
+  );
 }
 
 export function TR({ className, ...props }: ComponentProps<"tr">) {
@@ -69,7 +74,12 @@ export function TH({ sort, onSort, scope = "col", className, children, ...props 
     );
   }
   return (
-    <th scope={scope} aria-sort={sort} className={cn("px-4 py-2 align-bottom font-bold whitespace-nowrap", className)} {...props}>
+    <th
+      scope={scope}
+      aria-sort={sort}
+      className={cn("px-4 py-2 align-bottom font-bold whitespace-nowrap", className)}
+      {...props}
+    >
       {content}
     </th>
   );

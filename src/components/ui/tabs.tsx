@@ -35,11 +35,19 @@ export function Tabs({ items, label, value, defaultValue, onValueChange, classNa
     const index = items.findIndex((item) => item.value === current);
     const last = items.length - 1;
     const next =
-      event.key === "ArrowRight" ? (index >= last ? 0 : index + 1)
-      : event.key === "ArrowLeft" ? (index <= 0 ? last : index - 1)
-      : event.key === "Home" ? 0
-      : event.key === "End" ? last
-      : undefined;
+      event.key === "ArrowRight"
+        ? index >= last
+          ? 0
+          : index + 1
+        : event.key === "ArrowLeft"
+          ? index <= 0
+            ? last
+            : index - 1
+          : event.key === "Home"
+            ? 0
+            : event.key === "End"
+              ? last
+              : undefined;
     if (next === undefined) return;
     event.preventDefault();
     select(next);
@@ -47,7 +55,12 @@ export function Tabs({ items, label, value, defaultValue, onValueChange, classNa
 
   return (
     <div className={cn("flex flex-col gap-3", className)}>
-      <div role="tablist" aria-label={label} onKeyDown={handleKeyDown} className="flex flex-wrap gap-1 border-b-2 border-border">
+      <div
+        role="tablist"
+        aria-label={label}
+        onKeyDown={handleKeyDown}
+        className="flex flex-wrap gap-1 border-b-2 border-border"
+      >
         {items.map((item, index) => {
           const selected = item.value === current;
           return (

@@ -51,8 +51,11 @@ export const FEED_LIMIT_NAMES = ["organicLoad", "hydraulic", "stability", "start
 /** One feed limit. Temperature is folded into `organicLoad` through f(T). */
 export type FeedLimitName = (typeof FEED_LIMIT_NAMES)[number];
 
-/** What set today's budget: a limit, or a missing temperature (then the budget is 0). */
-export type FeedBinding = FeedLimitName | "temperatureUnknown";
+/** What can set today's budget: a limit, or a missing temperature (then the budget is 0). */
+export const FEED_BINDINGS = [...FEED_LIMIT_NAMES, "temperatureUnknown"] as const;
+
+/** One value of {@link FEED_BINDINGS}. */
+export type FeedBinding = (typeof FEED_BINDINGS)[number];
 
 /** Plain names of what binds; each appears (case-insensitively) in the explanation when it binds. */
 export const FEED_LIMIT_LABELS: Readonly<Record<FeedBinding, string>> = {
@@ -97,26 +100,33 @@ export interface FeedBudgetInput {
 }
 
 /** Codes of feed-budget warnings. */
-export type FeedWarningCode =
-  | "temperatureUnknown"
-  | "tooCold"
-  | "cool"
-  | "noRecentPh"
-  | "acidStop"
-  | "acidHalve"
-  | "acidHold"
-  | "holdWithoutHistory"
-  | "noHistory"
-  | "startUpNoGas"
-  | "startUpConfirmGas"
-  | "olrCapped"
-  | "olrOverride"
-  | "overLimitToday";
+export const FEED_WARNING_CODES = [
+  "temperatureUnknown",
+  "tooCold",
+  "cool",
+  "noRecentPh",
+  "acidStop",
+  "acidHalve",
+  "acidHold",
+  "holdWithoutHistory",
+  "noHistory",
+  "startUpNoGas",
+  "startUpConfirmGas",
+  "olrCapped",
+  "olrOverride",
+  "overLimitToday",
+] as const;
+
+/** One feed-budget warning code. */
+export type FeedWarningCode = (typeof FEED_WARNING_CODES)[number];
+
+/** Severities of feed-budget warnings, most severe first. */
+export const FEED_WARNING_SEVERITIES = ["stop", "caution", "info"] as const;
 
 /** A warning beside the budget: `stop` = do not feed, `caution` = feed less or act, `info` = worth knowing. */
 export interface FeedWarning {
   readonly code: FeedWarningCode;
-  readonly severity: "stop" | "caution" | "info";
+  readonly severity: (typeof FEED_WARNING_SEVERITIES)[number];
   readonly message: string;
   /** Steps to take, in order; empty when there is nothing to do. */
   readonly actions: readonly string[];

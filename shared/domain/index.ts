@@ -1,0 +1,12 @@
+/**
+ * The digester computation of Hearthloop (DOMAIN.md): pure functions with
+ * units in their names; import from here.
+ */
+export * from "./scraps";
+export * from "./temperature";
+export * from "./sizing";
+export * from "./stability";
+export * from "./feed-budget";
+export * from "./gas";
+export * from "./digestate";
+export * from "./calculators";

@@ -164,7 +164,8 @@ export type BasemapProperties =
   | { kind: "water"; name: string }
   | { kind: "block" };
 
-export type BasemapGeometry = { type: "LineString"; coordinates: LngLat[] } | { type: "Polygon"; coordinates: LngLat[][] };
+export type BasemapGeometry =
+  { type: "LineString"; coordinates: LngLat[] } | { type: "Polygon"; coordinates: LngLat[][] };
 
 export interface BasemapFeature {
   type: "Feature";
@@ -210,7 +211,10 @@ const HALF_HEIGHT_M = 450;
 type Xy = readonly [x: number, y: number];
 
 const round6 = (value: number): number => Math.round(value * 1e6) / 1e6;
-const toLngLat = ([x, y]: Xy): LngLat => [round6(LARKMOOR_CENTRE.lng + x / M_PER_DEG_LNG), round6(LARKMOOR_CENTRE.lat + y / M_PER_DEG_LAT)];
+const toLngLat = ([x, y]: Xy): LngLat => [
+  round6(LARKMOOR_CENTRE.lng + x / M_PER_DEG_LNG),
+  round6(LARKMOOR_CENTRE.lat + y / M_PER_DEG_LAT),
+];
 
 /** [west, south, east, north] of the drawn area in degrees. */
 export const LARKMOOR_BOUNDS: [number, number, number, number] = [
@@ -228,6 +232,7 @@ interface StreetSpec {
 
 // x east, y north, metres from the centre. Side streets start and end on the vertices of the
 // streets they meet, so junctions are exact and the block outlines below can find them.
+// prettier-ignore
 const STREETS_M: readonly StreetSpec[] = [
   {
     name: "Larkmoor Road",
@@ -261,6 +266,7 @@ interface AreaSpec {
   points: readonly Xy[];
 }
 
+// prettier-ignore
 const PARKS_M: readonly AreaSpec[] = [
   { name: "Larkmoor Green", points: [[-80, 172], [65, 160], [70, 282], [-76, 288]] },
   { name: "Cobnut Orchard", points: [[-430, 312], [-292, 314], [-288, 405], [-428, 408]] },
@@ -268,12 +274,14 @@ const PARKS_M: readonly AreaSpec[] = [
   { name: "Lanternfield School garden", points: [[275, 318], [345, 318], [345, 392], [275, 392]] },
 ];
 
+// prettier-ignore
 const BECK_M: { name: string; points: readonly Xy[] } = {
   name: "Larkmoor Beck",
   points: [[-600, -300], [-480, -290], [-380, -315], [-250, -305], [-120, -330], [0, -340], [120, -330], [260, -350], [380, -365], [480, -350], [600, -395]],
 };
 
 /** Street blocks as [west street, east street, south street, north street]. */
+// prettier-ignore
 const BLOCK_CELLS: readonly (readonly [string, string, string, string])[] = [
   ["Quillfeather Street", "Cobnut Lane", "Larkmoor Road", "Fernwhistle Way"],
   ["Cobnut Lane", "Bellmoss Avenue", "Larkmoor Road", "Fernwhistle Way"],
@@ -327,7 +335,10 @@ function pointAlong(points: readonly Xy[], s: number): { point: Xy; dir: Xy } {
     const len = dist(a, b);
     if (left <= len) {
       const t = left / len;
-      return { point: [a[0] + (b[0] - a[0]) * t, a[1] + (b[1] - a[1]) * t], dir: [(b[0] - a[0]) / len, (b[1] - a[1]) / len] };
+      return {
+        point: [a[0] + (b[0] - a[0]) * t, a[1] + (b[1] - a[1]) * t],
+        dir: [(b[0] - a[0]) / len, (b[1] - a[1]) / len],
+      };
     }
     left -= len;
   }
@@ -394,7 +405,12 @@ function streetPoints(name: string): readonly Xy[] {
 function blockOutline([west, east, south, north]: readonly [string, string, string, string]): Xy[] {
   const w = streetPoints(west);
   const e = streetPoints(east);
-  const corners = [junction(w, streetPoints(south)), junction(e, streetPoints(south)), junction(e, streetPoints(north)), junction(w, streetPoints(north))];
+  const corners = [
+    junction(w, streetPoints(south)),
+    junction(e, streetPoints(south)),
+    junction(e, streetPoints(north)),
+    junction(w, streetPoints(north)),
+  ];
   const cx = corners.reduce((sum, c) => sum + c[0], 0) / corners.length;
   const cy = corners.reduce((sum, c) => sum + c[1], 0) / corners.length;
   // Pulling each corner towards the centre by inset × √2 keeps roughly `inset` metres from each street.
@@ -427,10 +443,17 @@ export const LARKMOOR_STREETS: readonly LarkmoorStreet[] = STREETS_M.map((street
 }));
 
 /** The parks and green spaces of Larkmoor, as drawn on the basemap. */
-export const LARKMOOR_PARKS: readonly LarkmoorArea[] = PARKS_M.map((park) => ({ name: park.name, ring: closedCounterClockwise(park.points) }));
+export const LARKMOOR_PARKS: readonly LarkmoorArea[] = PARKS_M.map((park) => ({
+  name: park.name,
+  ring: closedCounterClockwise(park.points),
+}));
 
 /** Larkmoor Beck, the stream along the south of the neighbourhood. */
-export const LARKMOOR_WATER: LarkmoorStreet = { name: BECK_M.name, main: false, coordinates: BECK_M.points.map(toLngLat) };
+export const LARKMOOR_WATER: LarkmoorStreet = {
+  name: BECK_M.name,
+  main: false,
+  coordinates: BECK_M.points.map(toLngLat),
+};
 
 /**
  * The offline basemap as a GeoJSON FeatureCollection (RFC 7946, [lng, lat]).
@@ -440,10 +463,18 @@ export const LARKMOOR_WATER: LarkmoorStreet = { name: BECK_M.name, main: false, 
 export function buildLarkmoorBasemap(): BasemapFeatureCollection {
   const features: BasemapFeature[] = [];
   for (const park of LARKMOOR_PARKS) {
-    features.push({ type: "Feature", properties: { kind: "park", name: park.name }, geometry: { type: "Polygon", coordinates: [park.ring] } });
+    features.push({
+      type: "Feature",
+      properties: { kind: "park", name: park.name },
+      geometry: { type: "Polygon", coordinates: [park.ring] },
+    });
   }
   for (const cell of BLOCK_CELLS) {
-    features.push({ type: "Feature", properties: { kind: "block" }, geometry: { type: "Polygon", coordinates: [closedCounterClockwise(blockOutline(cell))] } });
+    features.push({
+      type: "Feature",
+      properties: { kind: "block" },
+      geometry: { type: "Polygon", coordinates: [closedCounterClockwise(blockOutline(cell))] },
+    });
   }
   features.push({
     type: "Feature",
@@ -531,6 +562,7 @@ export const DEMO_SIGN_IN_EMAILS = {
   steward2: "steward2@example.org",
 } as const;
 
+// prettier-ignore
 const FIRST_NAMES = [
   "Aisha", "Bram", "Carys", "Dmitri", "Elif", "Femi", "Greta", "Hamid", "Ines", "Jonah",
   "Kezia", "Luca", "Maya", "Niall", "Oona", "Pavel", "Qamar", "Ruth", "Sami", "Tess",
@@ -540,6 +572,7 @@ const FIRST_NAMES = [
 ] as const;
 
 // Household surnames; the first three belong to the demo resident, steward and second steward.
+// prettier-ignore
 const SURNAMES = [
   "Fennimore", "Marlowe", "Halloway", "Appleyard", "Birchall", "Coldwell", "Dimmock", "Eastoe", "Farrant", "Gilmour",
   "Hesketh", "Ibbotson", "Jessop", "Kilbride", "Lambourne", "Mossop", "Nettleship", "Okafor", "Pilling", "Quarmby",
@@ -696,7 +729,8 @@ function placeHouseholdSites(): Site[] {
   return sites;
 }
 
-const emailFor = (first: string, last: string): string => `${first}.${last}@larkmoor.example`.toLowerCase().replace(/[^a-z.@-]/g, "");
+const emailFor = (first: string, last: string): string =>
+  `${first}.${last}@larkmoor.example`.toLowerCase().replace(/[^a-z.@-]/g, "");
 
 interface Community {
   people: DemoPerson[];
@@ -713,11 +747,22 @@ function buildCommunity(): Community {
     if (index < 0) throw new Error(`demo data: no household near ${digesterKey}`);
     return at(sites.splice(index, 1), 0);
   };
-  const ordered: Site[] = [takeSite(DIGESTER_KEYS.green), takeSite(DIGESTER_KEYS.orchard), takeSite(DIGESTER_KEYS.meadow), ...sites];
+  const ordered: Site[] = [
+    takeSite(DIGESTER_KEYS.green),
+    takeSite(DIGESTER_KEYS.orchard),
+    takeSite(DIGESTER_KEYS.meadow),
+    ...sites,
+  ];
 
   const people: DemoPerson[] = [];
   const households: DemoHousehold[] = [];
-  const person = (key: string, email: string, name: string, roles: DemoRole[], householdKey: string | null): DemoPerson => ({
+  const person = (
+    key: string,
+    email: string,
+    name: string,
+    roles: DemoRole[],
+    householdKey: string | null,
+  ): DemoPerson => ({
     key,
     email,
     name,
@@ -738,16 +783,29 @@ function buildCommunity(): Community {
     const first = firstNames.shift();
     if (!first) throw new Error("demo data: ran out of first names");
     residentNumber += 1;
-    return person(`person-${String(residentNumber).padStart(2, "0")}`, emailFor(first, surname), `${first} ${surname}`, ["resident"], householdKey);
+    return person(
+      `person-${String(residentNumber).padStart(2, "0")}`,
+      emailFor(first, surname),
+      `${first} ${surname}`,
+      ["resident"],
+      householdKey,
+    );
   };
 
   ordered.forEach((site, index) => {
     const key = `household-${String(index + 1).padStart(2, "0")}`;
     const surname = at(SURNAMES, index);
     const members: DemoPerson[] = [];
-    if (index === 0) members.push(person(PERSON_KEYS.resident, DEMO_SIGN_IN_EMAILS.resident, "Rosa Fennimore", ["resident"], key));
-    else if (index === 1) members.push(person(PERSON_KEYS.steward, DEMO_SIGN_IN_EMAILS.steward, "Idris Marlowe", ["steward", "resident"], key));
-    else if (index === 2) members.push(person(PERSON_KEYS.steward2, DEMO_SIGN_IN_EMAILS.steward2, "Priya Halloway", ["steward", "resident"], key));
+    if (index === 0)
+      members.push(person(PERSON_KEYS.resident, DEMO_SIGN_IN_EMAILS.resident, "Rosa Fennimore", ["resident"], key));
+    else if (index === 1)
+      members.push(
+        person(PERSON_KEYS.steward, DEMO_SIGN_IN_EMAILS.steward, "Idris Marlowe", ["steward", "resident"], key),
+      );
+    else if (index === 2)
+      members.push(
+        person(PERSON_KEYS.steward2, DEMO_SIGN_IN_EMAILS.steward2, "Priya Halloway", ["steward", "resident"], key),
+      );
     else members.push(nextResident(key, surname));
     if (twoMember.has(index)) {
       // About half of the couples share a surname.
@@ -821,14 +879,11 @@ function makeClock(today: Date): Clock {
 const HISTORY_DAYS = 60;
 const FIRST_DAY = -(HISTORY_DAYS - 1);
 
-/** Six cold days centred on day −25. */
-const COLD_SPELL_FIRST_DAY = -28;
-const COLD_SPELL_LAST_DAY = -23;
-
 /** The orchard digester's acid episode: overfed on days −44…−42, rested −39…−34. */
 const OVERFEED_DAYS = [-44, -43, -42];
 const ACID_REST_FIRST_DAY = -39;
 const ACID_REST_LAST_DAY = -34;
+// prettier-ignore
 const ACID_PH: ReadonlyMap<number, readonly [ph: number, vfaTaRatio: number]> = new Map([
   [-42, [6.95, 0.42]],
   [-41, [6.8, 0.48]],
@@ -845,6 +900,7 @@ const ACID_PH: ReadonlyMap<number, readonly [ph: number, vfaTaRatio: number]> = 
   [-30, [7.08, 0.33]],
 ]);
 /** Share of normal gas production while the orchard digester was sour. */
+// prettier-ignore
 const ACID_GAS_SHARE: ReadonlyMap<number, number> = new Map([
   [-41, 0.8], [-40, 0.55], [-39, 0.35], [-38, 0.2], [-37, 0.2], [-36, 0.3], [-35, 0.4],
   [-34, 0.5], [-33, 0.6], [-32, 0.7], [-31, 0.8], [-30, 0.9],
@@ -861,14 +917,21 @@ const KG_VS_PER_FRESH_KG: Record<DemoScrapMix, number> = {
   breadGrains: 0.55 * 0.96,
   coffee: 0.4 * 0.98,
 };
-const TS_FRACTION: Record<DemoScrapMix, number> = { mixed: 0.26, fruitVeg: 0.14, cooked: 0.27, breadGrains: 0.55, coffee: 0.4 };
+const TS_FRACTION: Record<DemoScrapMix, number> = {
+  mixed: 0.26,
+  fruitVeg: 0.14,
+  cooked: 0.27,
+  breadGrains: 0.55,
+  coffee: 0.4,
+};
 /** Slurry target, 8 % TS (DOMAIN.md §2.7). */
 const TARGET_TS_FRACTION = 0.08;
 /** Bucket bulk density, kg/L (DOMAIN.md §1 default [judgement]). */
 const BUCKET_KG_PER_LITRE = 0.5;
 
 /** f(T) = 1.11^(T − 30) for 10 ≤ T < 30 °C, 1 above, 0 below (DOMAIN.md §2.2). Local copy: the demo must not move when budget code changes. */
-const temperatureFactor = (temperatureC: number): number => (temperatureC < 10 ? 0 : temperatureC >= 30 ? 1 : 1.11 ** (temperatureC - 30));
+const temperatureFactor = (temperatureC: number): number =>
+  temperatureC < 10 ? 0 : temperatureC >= 30 ? 1 : 1.11 ** (temperatureC - 30);
 
 interface SimProfile {
   key: string;
@@ -889,13 +952,16 @@ interface SimProfile {
   normalGasMinutes: number;
 }
 
+// prettier-ignore
 const SHAPE_FOLLOWS_AIR: ReadonlyMap<number, number> = new Map([
   [-29, 0.35], [-28, 1], [-27, 1], [-26, 1], [-25, 1], [-24, 1], [-23, 1], [-22, 0.55], [-21, 0.25], [-20, 0.1],
 ]);
+// prettier-ignore
 const SHAPE_LAGS: ReadonlyMap<number, number> = new Map([
   [-29, 0.1], [-28, 0.4], [-27, 0.7], [-26, 0.95], [-25, 1], [-24, 1], [-23, 0.95], [-22, 0.7], [-21, 0.45], [-20, 0.25], [-19, 0.1],
 ]);
 
+// prettier-ignore
 const SIM_PROFILES: ReadonlyMap<string, SimProfile> = new Map<string, SimProfile>([
   [DIGESTER_KEYS.school, {
     key: DIGESTER_KEYS.school, slots: [[15, 40]], baseTemperatureC: 19, swingC: 2.2, eveningLiftC: 0, coldTargetC: 9.6, coldMinimumC: 8,
@@ -936,7 +1002,9 @@ function simulateConditions(spec: DigesterSpec, profile: SimProfile): Map<number
   const out = new Map<number, DayConditions>();
   const firstDay = Math.max(FIRST_DAY, spec.startedDay);
   for (let day = firstDay; day <= 0; day++) {
-    const drift = profile.swingC * (0.65 * Math.sin((2 * Math.PI * day) / 17 + phase1) + 0.35 * Math.sin((2 * Math.PI * day) / 6.3 + phase2));
+    const drift =
+      profile.swingC *
+      (0.65 * Math.sin((2 * Math.PI * day) / 17 + phase1) + 0.35 * Math.sin((2 * Math.PI * day) / 6.3 + phase2));
     const normal = profile.baseTemperatureC + drift;
     const cold = profile.coldShape.get(day) ?? 0;
     const coldTemperature = profile.coldTargetC + rng.range(-0.8, 0.8);
@@ -949,7 +1017,9 @@ function simulateConditions(spec: DigesterSpec, profile: SimProfile): Map<number
     let ph: number | null = null;
     let vfaTaRatio: number | null = null;
     const sinceStart = day - spec.startedDay;
-    const normalPh = round2(clamp(7.17 + 0.09 * Math.sin((2 * Math.PI * day) / 11 + phPhase) + rng.range(-0.05, 0.05) - 0.06 * cold, 7, 7.4));
+    const normalPh = round2(
+      clamp(7.17 + 0.09 * Math.sin((2 * Math.PI * day) / 11 + phPhase) + rng.range(-0.05, 0.05) - 0.06 * cold, 7, 7.4),
+    );
     if (spec.key === DIGESTER_KEYS.orchard && ACID_PH.has(day)) {
       const acid = ACID_PH.get(day);
       if (acid) [ph, vfaTaRatio] = acid;
@@ -986,7 +1056,8 @@ interface DropOffPlan {
 const freshKgOf = (plan: Pick<DropOffPlan, "bucketCount" | "bucketLitres" | "weightKg">): number =>
   plan.weightKg ?? plan.bucketCount * plan.bucketLitres * BUCKET_KG_PER_LITRE;
 
-const waterLitresFor = (mix: DemoScrapMix, freshKg: number): number => freshKg * (TS_FRACTION[mix] / TARGET_TS_FRACTION - 1);
+const waterLitresFor = (mix: DemoScrapMix, freshKg: number): number =>
+  freshKg * (TS_FRACTION[mix] / TARGET_TS_FRACTION - 1);
 
 function pickMix(rng: Rng, size: SimProfile["size"]): DemoScrapMix {
   return rng.weighted<DemoScrapMix>([
@@ -999,7 +1070,13 @@ function pickMix(rng: Rng, size: SimProfile["size"]): DemoScrapMix {
 }
 
 /** Buckets that add up to no more than the day's allowance (kg VS) and slurry (litres). */
-function planDropOffs(rng: Rng, size: SimProfile["size"], allowanceKgVs: number, slurryLitres: number, forceMix?: readonly DemoScrapMix[]): DropOffPlan[] {
+function planDropOffs(
+  rng: Rng,
+  size: SimProfile["size"],
+  allowanceKgVs: number,
+  slurryLitres: number,
+  forceMix?: readonly DemoScrapMix[],
+): DropOffPlan[] {
   const plans: DropOffPlan[] = [];
   let kgVsLeft = allowanceKgVs;
   let slurryLeft = slurryLitres;
@@ -1032,7 +1109,10 @@ function planDropOffs(rng: Rng, size: SimProfile["size"], allowanceKgVs: number,
             [{ bucketCount: 1, bucketLitres: 10, weightKg: null }, 1],
             [{ bucketCount: 1, bucketLitres: 5, weightKg: weighedKg(maxFreshKg, 0.6, 2.4) }, 3],
           ];
-    const fitting = buckets.filter(([bucket]) => (bucket.weightKg === null || bucket.weightKg >= minimumKg) && freshKgOf(bucket) <= maxFreshKg + 1e-9);
+    const fitting = buckets.filter(
+      ([bucket]) =>
+        (bucket.weightKg === null || bucket.weightKg >= minimumKg) && freshKgOf(bucket) <= maxFreshKg + 1e-9,
+    );
     if (fitting.length === 0) {
       misses += 1;
       continue;
@@ -1055,36 +1135,48 @@ const DROP_OFF_NOTES = [
 ] as const;
 
 const READING_NOTES: ReadonlyMap<string, ReadonlyMap<number, string>> = new Map([
-  [DIGESTER_KEYS.green, new Map([
-    [-55, "Drained the condensate trap."],
-    [-41, "Lunch club cooked for forty today."],
-    [-26, "Cold snap: heating loop running flat out, tank a little cooler."],
-    [-12, "Flame trap checked and cleaned."],
-    [-3, "Stirred; broke up the crust."],
-  ])],
-  [DIGESTER_KEYS.orchard, new Map([
-    [-44, "Leftovers from the harvest supper: a lot of bread and rice over three days."],
-    [-41, "Flame weaker than usual."],
-    [-40, "Sour smell; flame orange and weak. Halving the feed."],
-    [-39, "pH below 6.5: stopped feeding, stirred, added 1 kg of sodium bicarbonate."],
-    [-37, "Re-tested: acids still high. Resting."],
-    [-35, "pH climbing. Resting two more days."],
-    [-33, "Restarting at a quarter of the usual feed."],
-    [-27, "Cold snap: wrapped the inlet pipe."],
-    [-16, "Flame steady and blue again."],
-  ])],
-  [DIGESTER_KEYS.school, new Map([
-    [-27, "Frost overnight. Lid covered with an old duvet."],
-    [-25, "Too cold to feed today."],
-    [-20, "Warming up again; the class timed the flame."],
-    [-3, "Out of pH strips; new pack ordered."],
-  ])],
-  [DIGESTER_KEYS.meadow, new Map([
-    [-20, "Filled with water and 200 L of digestate from the Green digester as a starter."],
-    [-15, "Gas will not light yet; vented the drum."],
-    [-11, "First steady blue flame."],
-    [-5, "Solar loop pump restarted after the storm."],
-  ])],
+  [
+    DIGESTER_KEYS.green,
+    new Map([
+      [-55, "Drained the condensate trap."],
+      [-41, "Lunch club cooked for forty today."],
+      [-26, "Cold snap: heating loop running flat out, tank a little cooler."],
+      [-12, "Flame trap checked and cleaned."],
+      [-3, "Stirred; broke up the crust."],
+    ]),
+  ],
+  [
+    DIGESTER_KEYS.orchard,
+    new Map([
+      [-44, "Leftovers from the harvest supper: a lot of bread and rice over three days."],
+      [-41, "Flame weaker than usual."],
+      [-40, "Sour smell; flame orange and weak. Halving the feed."],
+      [-39, "pH below 6.5: stopped feeding, stirred, added 1 kg of sodium bicarbonate."],
+      [-37, "Re-tested: acids still high. Resting."],
+      [-35, "pH climbing. Resting two more days."],
+      [-33, "Restarting at a quarter of the usual feed."],
+      [-27, "Cold snap: wrapped the inlet pipe."],
+      [-16, "Flame steady and blue again."],
+    ]),
+  ],
+  [
+    DIGESTER_KEYS.school,
+    new Map([
+      [-27, "Frost overnight. Lid covered with an old duvet."],
+      [-25, "Too cold to feed today."],
+      [-20, "Warming up again; the class timed the flame."],
+      [-3, "Out of pH strips; new pack ordered."],
+    ]),
+  ],
+  [
+    DIGESTER_KEYS.meadow,
+    new Map([
+      [-20, "Filled with water and 200 L of digestate from the Green digester as a starter."],
+      [-15, "Gas will not light yet; vented the drum."],
+      [-11, "First steady blue flame."],
+      [-5, "Solar loop pump restarted after the storm."],
+    ]),
+  ],
 ]);
 
 interface TurnedAwayPlan {
@@ -1098,16 +1190,73 @@ interface TurnedAwayPlan {
 }
 
 const TURNED_AWAY: readonly TurnedAwayPlan[] = [
-  { day: -52, digesterKey: DIGESTER_KEYS.green, reason: "contamination", bucketLitres: 10, mix: "cooked", citrusPercent: 0, note: "Chicken bones and a plastic bag in the bucket." },
-  { day: -47, digesterKey: DIGESTER_KEYS.green, reason: "too_much_citrus", bucketLitres: 15, mix: "fruitVeg", citrusPercent: 15, note: "Mostly orange peel from marmalade making." },
-  { day: -39, digesterKey: DIGESTER_KEYS.orchard, reason: "over_budget", bucketLitres: 5, mix: "mixed", citrusPercent: 2, note: "Digester resting after acid build-up; please take it to Larkmoor Green." },
-  { day: -37, digesterKey: DIGESTER_KEYS.orchard, reason: "over_budget", bucketLitres: 10, mix: "mixed", citrusPercent: 0, note: "Still resting; redirected to Larkmoor Green." },
-  { day: -26, digesterKey: DIGESTER_KEYS.school, reason: "over_budget", bucketLitres: 5, mix: "fruitVeg", citrusPercent: 5, note: "Too cold to digest this week." },
-  { day: -18, digesterKey: DIGESTER_KEYS.green, reason: "contamination", bucketLitres: 10, mix: "mixed", citrusPercent: 3, note: "'Compostable' bag inside; please empty it loose." },
-  { day: -6, digesterKey: DIGESTER_KEYS.meadow, reason: "too_much_citrus", bucketLitres: 10, mix: "fruitVeg", citrusPercent: 15, note: "Half lemon and lime peel; a new digester cannot take that." },
+  {
+    day: -52,
+    digesterKey: DIGESTER_KEYS.green,
+    reason: "contamination",
+    bucketLitres: 10,
+    mix: "cooked",
+    citrusPercent: 0,
+    note: "Chicken bones and a plastic bag in the bucket.",
+  },
+  {
+    day: -47,
+    digesterKey: DIGESTER_KEYS.green,
+    reason: "too_much_citrus",
+    bucketLitres: 15,
+    mix: "fruitVeg",
+    citrusPercent: 15,
+    note: "Mostly orange peel from marmalade making.",
+  },
+  {
+    day: -39,
+    digesterKey: DIGESTER_KEYS.orchard,
+    reason: "over_budget",
+    bucketLitres: 5,
+    mix: "mixed",
+    citrusPercent: 2,
+    note: "Digester resting after acid build-up; please take it to Larkmoor Green.",
+  },
+  {
+    day: -37,
+    digesterKey: DIGESTER_KEYS.orchard,
+    reason: "over_budget",
+    bucketLitres: 10,
+    mix: "mixed",
+    citrusPercent: 0,
+    note: "Still resting; redirected to Larkmoor Green.",
+  },
+  {
+    day: -26,
+    digesterKey: DIGESTER_KEYS.school,
+    reason: "over_budget",
+    bucketLitres: 5,
+    mix: "fruitVeg",
+    citrusPercent: 5,
+    note: "Too cold to digest this week.",
+  },
+  {
+    day: -18,
+    digesterKey: DIGESTER_KEYS.green,
+    reason: "contamination",
+    bucketLitres: 10,
+    mix: "mixed",
+    citrusPercent: 3,
+    note: "'Compostable' bag inside; please empty it loose.",
+  },
+  {
+    day: -6,
+    digesterKey: DIGESTER_KEYS.meadow,
+    reason: "too_much_citrus",
+    bucketLitres: 10,
+    mix: "fruitVeg",
+    citrusPercent: 15,
+    note: "Half lemon and lime peel; a new digester cannot take that.",
+  },
 ];
 
 /** Today's pending drop-offs: [digester, hour, minute, litres, weighed kg or null, mix]. */
+// prettier-ignore
 const PENDING_TODAY: readonly (readonly [string, number, number, number, number | null, DemoScrapMix])[] = [
   [DIGESTER_KEYS.green, 7, 40, 10, null, "mixed"],
   [DIGESTER_KEYS.green, 8, 25, 15, null, "fruitVeg"],
@@ -1151,7 +1300,9 @@ export function buildDemoNeighbourhood(today: Date): DemoNeighbourhood {
   // Residents mostly use their own digester; the big Green one also takes everyone's surplus.
   const poolFor = (digesterKey: string): readonly (readonly [string, number])[] => {
     if (digesterKey === DIGESTER_KEYS.green) {
-      return assigned.map((household) => [household.key, household.assignedDigesterKey === digesterKey ? 3 : 1] as const);
+      return assigned.map(
+        (household) => [household.key, household.assignedDigesterKey === digesterKey ? 3 : 1] as const,
+      );
     }
     const own = assigned.filter((household) => household.assignedDigesterKey === digesterKey);
     return (own.length > 0 ? own : assigned).map((household) => [household.key, 1] as const);
@@ -1160,7 +1311,11 @@ export function buildDemoNeighbourhood(today: Date): DemoNeighbourhood {
   let dropOffNumber = 0;
   const addDropOff = (
     rng: Rng,
-    fields: Omit<DemoDropOff, "key" | "personKey" | "forDate" | "createdAt" | "note"> & { createdAt: Date; day: number; note?: string | null },
+    fields: Omit<DemoDropOff, "key" | "personKey" | "forDate" | "createdAt" | "note"> & {
+      createdAt: Date;
+      day: number;
+      note?: string | null;
+    },
   ): DemoDropOff => {
     dropOffNumber += 1;
     const members = membersOf.get(fields.householdKey) ?? [];
@@ -1217,7 +1372,11 @@ export function buildDemoNeighbourhood(today: Date): DemoNeighbourhood {
       }
       const hydraulicLitres = (volumeM3 * 1000) / (temperatureC >= 20 ? 40 : 100);
 
-      let allowanceKgVs = Math.min(rng.range(...profile.utilisation) * stability * organicKgVs, weekCap, startUp * organicKgVs);
+      let allowanceKgVs = Math.min(
+        rng.range(...profile.utilisation) * stability * organicKgVs,
+        weekCap,
+        startUp * organicKgVs,
+      );
       let forceMix: readonly DemoScrapMix[] | undefined;
       let feedingNote: string | null = null;
       if (spec.key === DIGESTER_KEYS.orchard) {
@@ -1236,7 +1395,10 @@ export function buildDemoNeighbourhood(today: Date): DemoNeighbourhood {
       const times = plans.map(() => rng.int(7 * 60, 19 * 60 + 30)).sort((a, b) => a - b);
       const fed = plans.map((plan, index) => {
         const minutes = at(times, index);
-        const householdKey = spec.key === DIGESTER_KEYS.green && index === 0 && (day + 90) % 3 === 0 ? residentHouseholdKey : rng.weighted(pool);
+        const householdKey =
+          spec.key === DIGESTER_KEYS.green && index === 0 && (day + 90) % 3 === 0
+            ? residentHouseholdKey
+            : rng.weighted(pool);
         return addDropOff(rng, {
           householdKey,
           digesterKey: spec.key,
@@ -1253,14 +1415,17 @@ export function buildDemoNeighbourhood(today: Date): DemoNeighbourhood {
       });
       const freshKg = plans.reduce((sum, plan) => sum + plan.freshKg, 0);
       const waterLitres = plans.reduce((sum, plan) => sum + waterLitresFor(plan.mix, plan.freshKg), 0);
-      vsFedByDay.set(day, plans.reduce((sum, plan) => sum + plan.freshKg * KG_VS_PER_FRESH_KG[plan.mix], 0));
+      vsFedByDay.set(
+        day,
+        plans.reduce((sum, plan) => sum + plan.freshKg * KG_VS_PER_FRESH_KG[plan.mix], 0),
+      );
       feedings.push({
         key: `feeding-${spec.key.replace("digester-", "")}-${clock.date(day)}`,
         digesterKey: spec.key,
         personKey: stewardKey,
         fedOn: clock.date(day),
         freshKg: round1(freshKg),
-        waterLitres: Math.round(waterLitres * 2) / 2,
+        waterLitres: round1(waterLitres),
         dropOffKeys: fed.map((dropOff) => dropOff.key),
         note: feedingNote,
       });
@@ -1268,7 +1433,11 @@ export function buildDemoNeighbourhood(today: Date): DemoNeighbourhood {
 
     // ── readings ──
     const notes = READING_NOTES.get(spec.key) ?? new Map<number, string>();
-    const normalKgVs = spec.olrRefKgVsPerM3Day * temperatureFactor(profile.baseTemperatureC) * spec.workingVolumeM3 * profile.utilisation[0];
+    const normalKgVs =
+      spec.olrRefKgVsPerM3Day *
+      temperatureFactor(profile.baseTemperatureC) *
+      spec.workingVolumeM3 *
+      profile.utilisation[0];
     let readingNumber = 0;
     for (let day = firstDay; day <= 0; day++) {
       const c = conditions.get(day);
@@ -1292,10 +1461,16 @@ export function buildDemoNeighbourhood(today: Date): DemoNeighbourhood {
         const temperatureC = isMorningCheck ? round1(at(c.temperatures, 0) - 0.6) : at(c.temperatures, regular);
         let gasLevelPercent: number;
         if (!gasBurns) gasLevelPercent = round1(clamp(15 + 2.5 * (day - spec.startedDay) + gasRng.range(-5, 5), 5, 60));
-        else if (profile.slots.length > 1) gasLevelPercent = round1(clamp((regular === 0 ? 45 + 45 * health : 18 + 30 * health) + gasRng.range(-4, 4), 3, 97));
+        else if (profile.slots.length > 1)
+          gasLevelPercent = round1(
+            clamp((regular === 0 ? 45 + 45 * health : 18 + 30 * health) + gasRng.range(-4, 4), 3, 97),
+          );
         else gasLevelPercent = round1(clamp(28 + 50 * health + gasRng.range(-6, 6), 3, 97));
         const lastRegular = regular === profile.slots.length - 1;
-        const gasUsedMinutes = gasBurns && lastRegular ? Math.round((profile.normalGasMinutes * health * gasRng.range(0.8, 1.1)) / 5) * 5 : null;
+        const gasUsedMinutes =
+          gasBurns && lastRegular
+            ? Math.round((profile.normalGasMinutes * health * gasRng.range(0.8, 1.1)) / 5) * 5
+            : null;
         const phHere = regular === 0 ? c.ph : null;
         readingNumber += 1;
         readings.push({
@@ -1339,7 +1514,10 @@ export function buildDemoNeighbourhood(today: Date): DemoNeighbourhood {
   PENDING_TODAY.forEach(([digesterKey, hour, minute, litres, weightKg, mix], index) => {
     const wanted = clock.at(0, hour, minute).getTime();
     // Early in the day the six are squeezed into the hours already gone.
-    const createdAt = wanted <= today.getTime() ? wanted : startOfToday + ((today.getTime() - startOfToday) * (index + 1)) / (PENDING_TODAY.length + 1);
+    const createdAt =
+      wanted <= today.getTime()
+        ? wanted
+        : startOfToday + ((today.getTime() - startOfToday) * (index + 1)) / (PENDING_TODAY.length + 1);
     addDropOff(pendingRng, {
       householdKey: index === 0 ? residentHouseholdKey : pendingRng.weighted(poolFor(digesterKey)),
       digesterKey,

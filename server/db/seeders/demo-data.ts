@@ -614,7 +614,7 @@ const DIGESTER_SPECS: readonly DigesterSpec[] = [
   {
     key: DIGESTER_KEYS.school,
     name: "Lanternfield School digester",
-    siteDescription: "Lanternfield School garden, behind the greenhouse. Gate open 8:00–17:00.",
+    siteDescription: "Lanternfield School garden, behind the greenhouse. Gate open 7:30–17:30.",
     at: [310, 355],
     workingVolumeM3: 0.5,
     drumDiameterM: 0.6,

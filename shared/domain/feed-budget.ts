@@ -46,7 +46,14 @@ export const WEEK_RAMP_FLOOR_SHARE = 0.25;
 export const DEFAULT_BUCKET_LITRES = 10;
 
 /** Names of the limits, in the order used to name the binding one on a tie (the more basic reason first). */
-export const FEED_LIMIT_NAMES = ["organicLoad", "hydraulic", "stability", "startUpRamp", "weekRamp", "rollingWeek"] as const;
+export const FEED_LIMIT_NAMES = [
+  "organicLoad",
+  "hydraulic",
+  "stability",
+  "startUpRamp",
+  "weekRamp",
+  "rollingWeek",
+] as const;
 
 /** One feed limit. Temperature is folded into `organicLoad` through f(T). */
 export type FeedLimitName = (typeof FEED_LIMIT_NAMES)[number];
@@ -178,8 +185,7 @@ export interface FeedBudget {
 export function computeFeedBudget(input: FeedBudgetInput): FeedBudget {
   const warnings: FeedWarning[] = [];
   const volumeM3 = Math.max(0, input.workingVolumeM3);
-  const temperatureC =
-    input.temperatureC !== null && Number.isFinite(input.temperatureC) ? input.temperatureC : null;
+  const temperatureC = input.temperatureC !== null && Number.isFinite(input.temperatureC) ? input.temperatureC : null;
   const tsPercent = input.scrapsTsPercent ?? DEFAULT_SCRAPS_TS_PERCENT;
   const vsPercentOfTs = input.scrapsVsPercentOfTs ?? DEFAULT_SCRAPS_VS_PERCENT_OF_TS;
   const waterPerKg = dilutionWaterPerKg(tsPercent, input.targetTsPercent ?? DEFAULT_TARGET_TS_PERCENT);
@@ -221,7 +227,8 @@ export function computeFeedBudget(input: FeedBudgetInput): FeedBudget {
       limits.startUpRamp =
         input.gasBurns === false
           ? 0
-          : (START_UP_INITIAL_SHARE + ((1 - START_UP_INITIAL_SHARE) * Math.max(0, daysSinceStart)) / START_UP_RAMP_DAYS) *
+          : (START_UP_INITIAL_SHARE +
+              ((1 - START_UP_INITIAL_SHARE) * Math.max(0, daysSinceStart)) / START_UP_RAMP_DAYS) *
             organic;
     }
     if (history !== null && weekMeanKgVs !== null) {
@@ -416,7 +423,8 @@ function pushStartUpWarnings(gasBurns: boolean | null | undefined, warnings: Fee
 function describeReadings(input: FeedBudgetInput): string {
   const parts: string[] = [];
   if (input.ph !== undefined && input.ph !== null) parts.push(`pH ${input.ph.toFixed(1)}`);
-  if (input.vfaTaRatio !== undefined && input.vfaTaRatio !== null) parts.push(`acids/alkalinity ${input.vfaTaRatio.toFixed(2)}`);
+  if (input.vfaTaRatio !== undefined && input.vfaTaRatio !== null)
+    parts.push(`acids/alkalinity ${input.vfaTaRatio.toFixed(2)}`);
   return parts.length > 0 ? parts.join(", ") : "no recent readings";
 }
 

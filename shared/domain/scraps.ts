@@ -17,7 +17,15 @@ import {
 } from "../units";
 
 /** Ids of the scrap categories a drop-off may be split into. */
-export const SCRAP_CATEGORIES = ["mixed", "fruitVeg", "cooked", "breadGrains", "coffee", "citrus", "eggshells"] as const;
+export const SCRAP_CATEGORIES = [
+  "mixed",
+  "fruitVeg",
+  "cooked",
+  "breadGrains",
+  "coffee",
+  "citrus",
+  "eggshells",
+] as const;
 
 /** One scrap category id. `mixed` is the default mix used when a drop-off gives no categories. */
 export type ScrapCategory = (typeof SCRAP_CATEGORIES)[number];

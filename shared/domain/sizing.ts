@@ -105,7 +105,9 @@ export function sizeDigesterForScraps(input: {
 }): ScrapSizing {
   const factor = temperatureFactor(input.temperatureC);
   if (factor <= 0) {
-    throw new RangeError(`Digestion stops below ${TOO_COLD_BELOW_C} °C: size for the temperature the digester is kept at.`);
+    throw new RangeError(
+      `Digestion stops below ${TOO_COLD_BELOW_C} °C: size for the temperature the digester is kept at.`,
+    );
   }
   const tsPercent = input.scrapsTsPercent ?? DEFAULT_SCRAPS_TS_PERCENT;
   const waterPerKg = dilutionWaterPerKg(tsPercent, input.targetTsPercent ?? DEFAULT_TARGET_TS_PERCENT);

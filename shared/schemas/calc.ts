@@ -54,10 +54,14 @@ export const FeedBudgetRequestSchema = z
     bucketKgPerLitre: numberIn("Bucket density", 0.1, 1.2, "kg/L").optional(),
   })
   .strict()
-  .refine((body) => body.olrRefKgVsPerM3Day === undefined || body.olrRefKgVsPerM3Day <= 2 || body.olrOverrideReason !== undefined, {
-    path: ["olrOverrideReason"],
-    error: "A reference loading rate above 2.0 kg VS/m³/day needs olrOverrideReason (3 to 300 characters).",
-  });
+  .refine(
+    (body) =>
+      body.olrRefKgVsPerM3Day === undefined || body.olrRefKgVsPerM3Day <= 2 || body.olrOverrideReason !== undefined,
+    {
+      path: ["olrOverrideReason"],
+      error: "A reference loading rate above 2.0 kg VS/m³/day needs olrOverrideReason (3 to 300 characters).",
+    },
+  );
 export type FeedBudgetRequest = z.infer<typeof FeedBudgetRequestSchema>;
 
 const kgVsPerDayOrNull = z.number().min(0).nullable();

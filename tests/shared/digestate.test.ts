@@ -38,7 +38,10 @@ describe("digestate", () => {
   });
 
   it("when a stricter local limit is given, then the allowance shrinks in proportion", () => {
-    expect(fertiliserAllowance({ bedAreaM2: 10, nitrogenGPerL: 5, limitKgNPerHaYear: 85 }).litresPerYear).toBeCloseTo(17, 12);
+    expect(fertiliserAllowance({ bedAreaM2: 10, nitrogenGPerL: 5, limitKgNPerHaYear: 85 }).litresPerYear).toBeCloseTo(
+      17,
+      12,
+    );
   });
 
   it("when advice is given, then it says dilute at least 1:1, more for seedlings, and warns it is not sanitised", () => {

@@ -35,7 +35,9 @@ describe("Chen–Hashimoto methane model", () => {
     // DOMAIN.md §3: washout when θ·μm ≤ 1 (Chen & Hashimoto 1978); 3 d × 0.261 = 0.78
     const washed = chenHashimotoMethane({ b0M3PerKgVs: 0.4, s0KgVsPerM3: 40, retentionDays: 3, temperatureC: 30 });
     expect(washed).toMatchObject({ methaneM3PerM3Day: 0, washout: true });
-    expect(chenHashimotoMethane({ b0M3PerKgVs: 0.4, s0KgVsPerM3: 40, retentionDays: 5, temperatureC: 30 }).washout).toBe(false);
+    expect(
+      chenHashimotoMethane({ b0M3PerKgVs: 0.4, s0KgVsPerM3: 40, retentionDays: 5, temperatureC: 30 }).washout,
+    ).toBe(false);
   });
 
   it("when the digester is below 20 °C, then the 20 °C result is scaled by f(T)/f(20)", () => {
@@ -74,7 +76,12 @@ describe("expected daily gas", () => {
     const gas = expectedDailyGas({ workingVolumeM3: 2, loadingKgVsPerDay: 1, temperatureC: 35 });
     expect(gas.s0KgVsPerM3).toBeCloseTo(69.6, 9);
     expect(gas.retentionDays).toBeCloseTo(2000 / ((1 / 0.2262) * 3.25), 6);
-    const model = chenHashimotoMethane({ b0M3PerKgVs: 0.4, s0KgVsPerM3: 69.6, retentionDays: gas.retentionDays!, temperatureC: 35 });
+    const model = chenHashimotoMethane({
+      b0M3PerKgVs: 0.4,
+      s0KgVsPerM3: 69.6,
+      retentionDays: gas.retentionDays!,
+      temperatureC: 35,
+    });
     expect(gas.methaneM3PerDay).toBeCloseTo(model.methaneM3PerM3Day * 2, 12);
     expect(gas.biogasM3PerDay).toBeCloseTo(gas.methaneM3PerDay / 0.6, 12);
     expect(gas.biogasLitresPerDay).toBeCloseTo(gas.biogasM3PerDay * 1000, 9);

@@ -77,7 +77,11 @@ describe("scrap composition", () => {
         fc.double({ min: 0.01, max: 100, noNaN: true }),
         (mix, scale) => {
           const a = describeMix(mix);
-          const b = describeMix({ fruitVeg: mix.fruitVeg * scale, cooked: mix.cooked * scale, citrus: mix.citrus * scale });
+          const b = describeMix({
+            fruitVeg: mix.fruitVeg * scale,
+            cooked: mix.cooked * scale,
+            citrus: mix.citrus * scale,
+          });
           expect(b.kgVsPerFreshKg).toBeCloseTo(a.kgVsPerFreshKg, 9);
           const sum = SCRAP_CATEGORIES.reduce((s, id) => s + a.shares[id], 0);
           expect(sum).toBeCloseTo(1, 9);
@@ -155,9 +159,19 @@ describe("scrap flags", () => {
   });
 
   it("when the refuse list is read, then it holds every item of DOMAIN.md §1", () => {
-    expect([...REFUSE_ITEMS].sort()).toEqual(
-      ["bones", "dairy", "detergents", "disinfectants", "fish", "glass", "meat", "medicines", "metal", "oilsFats", "plastics"],
-    );
+    expect([...REFUSE_ITEMS].sort()).toEqual([
+      "bones",
+      "dairy",
+      "detergents",
+      "disinfectants",
+      "fish",
+      "glass",
+      "meat",
+      "medicines",
+      "metal",
+      "oilsFats",
+      "plastics",
+    ]);
     expect(REFUSE_ITEM_INFO.plastics.label).toMatch(/compostable/i);
   });
 });

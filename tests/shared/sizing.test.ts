@@ -37,14 +37,25 @@ describe("sizing", () => {
   it("when scraps are sized warm, then the larger of the retention-rule and organic-load volumes is chosen", () => {
     // [derived] 10 kg/d at 14 % TS → w = 0.75, slurry 17.5 L/d × 40 d = 0.7 m³;
     // organic check: 10 × 0.14 × 0.89 = 1.246 kg VS/d ÷ 1.5 = 0.83 m³ → organic governs here
-    const wet = sizeDigesterForScraps({ dailyScrapsKg: 10, scrapsTsPercent: 14, scrapsVsPercentOfTs: 89, temperatureC: 35 });
+    const wet = sizeDigesterForScraps({
+      dailyScrapsKg: 10,
+      scrapsTsPercent: 14,
+      scrapsVsPercentOfTs: 89,
+      temperatureC: 35,
+    });
     expect(wet.dailySlurryLitres).toBeCloseTo(17.5, 12);
     expect(wet.dilutionWaterLitresPerDay).toBeCloseTo(7.5, 12);
     expect(wet.minimumRetentionDays).toBe(40);
     expect(wet.governedBy).toBe("organicLoad");
     expect(wet.workingVolumeM3).toBeCloseTo(1.246 / 1.5, 9);
     // at a low TS target the slurry is larger and the retention rule governs: 10 × (14/4) = 35 L/d × 40 = 1.4 m³
-    const dilute = sizeDigesterForScraps({ dailyScrapsKg: 10, scrapsTsPercent: 14, scrapsVsPercentOfTs: 89, targetTsPercent: 4, temperatureC: 35 });
+    const dilute = sizeDigesterForScraps({
+      dailyScrapsKg: 10,
+      scrapsTsPercent: 14,
+      scrapsVsPercentOfTs: 89,
+      targetTsPercent: 4,
+      temperatureC: 35,
+    });
     expect(dilute.governedBy).toBe("hydraulic");
     expect(dilute.workingVolumeM3).toBeCloseTo(1.4, 12);
     expect(dilute.retentionDays).toBe(40);

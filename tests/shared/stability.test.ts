@@ -63,7 +63,11 @@ describe("stability bands", () => {
   it("when pH and ratio disagree, then the more severe band wins", () => {
     expect(assessStability({ ph: 6.4, vfaTaRatio: 0.3 })).toMatchObject({ band: "stop", factor: 0 });
     expect(assessStability({ ph: 7.0, vfaTaRatio: 0.55 })).toMatchObject({ band: "halve", factor: 0.5 });
-    expect(assessStability({ ph: 6.6, vfaTaRatio: 0.45 })).toMatchObject({ band: "halve", factor: 0.5, holdAtWeekMean: true });
+    expect(assessStability({ ph: 6.6, vfaTaRatio: 0.45 })).toMatchObject({
+      band: "halve",
+      factor: 0.5,
+      holdAtWeekMean: true,
+    });
     expect(assessStability({ vfaTaRatio: 0.3 })).toMatchObject({ band: "ok", factor: 0.8, phMissing: true });
   });
 });

@@ -22,9 +22,13 @@ describe("temperature factor f(T)", () => {
 
   it("when T rises, then f never falls (1000 runs)", () => {
     fc.assert(
-      fc.property(fc.double({ min: -30, max: 90, noNaN: true }), fc.double({ min: 0, max: 60, noNaN: true }), (t, rise) => {
-        expect(temperatureFactor(t + rise)).toBeGreaterThanOrEqual(temperatureFactor(t));
-      }),
+      fc.property(
+        fc.double({ min: -30, max: 90, noNaN: true }),
+        fc.double({ min: 0, max: 60, noNaN: true }),
+        (t, rise) => {
+          expect(temperatureFactor(t + rise)).toBeGreaterThanOrEqual(temperatureFactor(t));
+        },
+      ),
       { numRuns: 1000 },
     );
   });
@@ -68,12 +72,27 @@ describe("which temperature to budget with", () => {
   });
 
   it("when a reading is timestamped in the future, then it is ignored", () => {
-    const picked = pickDigesterTemperature([{ at: hoursAgo(-5), value: 35 }, { at: hoursAgo(10), value: 19 }], now);
+    const picked = pickDigesterTemperature(
+      [
+        { at: hoursAgo(-5), value: 35 },
+        { at: hoursAgo(10), value: 19 },
+      ],
+      now,
+    );
     expect(picked.temperatureC).toBe(19);
   });
 
   it("when the latest pH within 7 days is asked for, then older readings are skipped", () => {
     expect(latestReadingWithin([{ at: hoursAgo(200), value: 6.1 }], now, 168)).toBeNull();
-    expect(latestReadingWithin([{ at: hoursAgo(100), value: 7.0 }, { at: hoursAgo(20), value: 6.9 }], now, 168)?.value).toBe(6.9);
+    expect(
+      latestReadingWithin(
+        [
+          { at: hoursAgo(100), value: 7.0 },
+          { at: hoursAgo(20), value: 6.9 },
+        ],
+        now,
+        168,
+      )?.value,
+    ).toBe(6.9);
   });
 });

@@ -12,6 +12,9 @@ import { env, tileOrigin } from "./config/env";
 import { logger } from "./lib/logger";
 import { apiNotFound, errorHandler } from "./middleware/error-handler";
 import { apiRouter } from "./routes";
+import { redactUrl, securityErrorLogger } from "./lib/security-log";
+import { csrfProtection } from "./middleware/csrf";
+import { passportMiddleware, sessionLifetime, sessionMiddleware } from "./middleware/session";
 
 export interface AppOptions {
   /** Serve the built client from this folder (absent in API tests). */
@@ -61,7 +64,8 @@ export function createApp(options: AppOptions = {}): Express {
       autoLogging: options.requestLogging ?? true,
       customLogLevel: (_req, res, err) => (err || res.statusCode >= 500 ? "error" : res.statusCode >= 400 ? "info" : "debug"),
       serializers: {
-        req: (req) => ({ id: req.id, method: req.method, url: req.url }),
+        // One-time tokens in invitation and reset URLs never reach the log.
+        req: (req) => ({ id: req.id, method: req.method, url: redactUrl(String(req.url)) }),
         res: (res) => ({ statusCode: res.statusCode }),
       },
     }),
@@ -73,6 +77,8 @@ export function createApp(options: AppOptions = {}): Express {
     next();
   });
   app.use("/api", express.json({ limit: "100kb", strict: true }));
+  // Sessions (PostgreSQL), then who is signed in, then the absolute timeout, then CSRF.
+  app.use("/api", sessionMiddleware(), ...passportMiddleware(), sessionLifetime, csrfProtection);
   app.use("/api", apiRouter());
   app.use("/api", apiNotFound);
 
@@ -88,6 +94,7 @@ export function createApp(options: AppOptions = {}): Express {
     });
   }
 
+  app.use(securityErrorLogger);
   app.use(errorHandler);
   return app;
 }

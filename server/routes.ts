@@ -1,11 +1,19 @@
 import { Router } from "express";
 import { healthRouter } from "./modules/health/health.routes";
 import { digestersRouter } from "./modules/digesters/digesters.routes";
+import { authRouter } from "./modules/auth/auth.routes";
+import { peopleRouter } from "./modules/people/people.routes";
+import { accountRouter } from "./modules/account/account.routes";
+import { outboxRouter } from "./modules/outbox/outbox.routes";
 
 /** Every API router, mounted under /api. */
 export function apiRouter() {
   const router = Router();
   router.use(healthRouter);
   router.use(digestersRouter);
+  router.use(authRouter());
+  router.use(peopleRouter());
+  router.use(accountRouter());
+  router.use(outboxRouter());
   return router;
 }

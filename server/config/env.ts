@@ -60,6 +60,11 @@ export function env(): Env {
   return cached;
 }
 
+/** The public base URL for links in e-mails (APP_URL, or the address the app listens on). */
+export function appUrl(e: Env = env()): string {
+  return (e.APP_URL ?? `http://${e.HOST}:${e.PORT}`).replace(/\/+$/, "");
+}
+
 /** The origin of the configured tile server, or undefined when the offline basemap is used. */
 export function tileOrigin(e: Env = env()): string | undefined {
   if (!e.VITE_TILE_URL) return undefined;

@@ -1,8 +1,14 @@
-/** node-cron schedules; each job only calls a service. Filled by the outbox and reminder work. */
+/** node-cron schedules; each job only calls a service. */
+import { startHousekeepingJob } from "./housekeeping.job";
+import { startOutboxJob } from "./outbox.job";
+
 const stops: Array<() => Promise<void> | void> = [];
 
+/** Starts every job (server/index.ts calls this when JOBS_ENABLED). Add new jobs here. */
 export function startJobs() {
-  // Jobs register here as they are added (outbox sender, reminders).
+  if (stops.length > 0) return;
+  stops.push(startOutboxJob());
+  stops.push(startHousekeepingJob());
 }
 
 export async function stopJobs() {

@@ -1,0 +1,172 @@
+/**
+ * Sessions: express-session with rows in PostgreSQL (connect-pg-simple, table `sessions`),
+ * sharing the app's Sequelize pool. Idle timeout 30 min (every request moves it), absolute
+ * timeout 8 h from sign-in (OWASP Session Management Cheat Sheet; ASVS V7.3).
+ *
+ * Routes that must start or end a session use {@link handleWithSession}, which hands the
+ * handler a narrow {@link SessionControl} instead of `req`/`res`.
+ */
+import type { NextFunction, Request, RequestHandler, Response } from "express";
+import session from "express-session";
+import connectPgSimple from "connect-pg-simple";
+import { QueryTypes } from "sequelize";
+import type { z } from "zod";
+import { env } from "../config/env";
+import { sequelize } from "../db/sequelize";
+import { logger } from "../lib/logger";
+import { passport } from "../lib/passport";
+import { logSecurityEvent } from "../lib/security-log";
+import type { SessionInfo } from "../../shared/schemas/auth";
+import { csrfTokenFor } from "./csrf";
+import { handle, type Caller, type HandlerInput, type Reply } from "./handle";
+
+export const IDLE_TIMEOUT_MS = 30 * 60_000;
+export const ABSOLUTE_TIMEOUT_MS = 8 * 60 * 60_000;
+/** Response header on signed-in API answers: seconds until the session ends if nothing else happens. */
+export const SESSION_EXPIRES_HEADER = "X-Session-Expires-In";
+
+declare module "express-session" {
+  interface SessionData {
+    /** Epoch ms of sign-in, for the absolute timeout. */
+    signedInAt?: number;
+    passport?: { user?: number };
+  }
+}
+
+/** `__Host-` in production: the browser then insists on Secure, Path=/ and no Domain. */
+export function sessionCookieName(production = env().NODE_ENV === "production"): string {
+  return production ? "__Host-hearthloop.sid" : "hearthloop.sid";
+}
+
+function cookieOptions() {
+  const production = env().NODE_ENV === "production";
+  return { httpOnly: true, sameSite: "lax" as const, secure: production, path: "/" };
+}
+
+/** connect-pg-simple's `pgPromise` hook, answered by Sequelize so sessions use the app's one pool. */
+const sequelizeAdapter = {
+  any: (query: string, params: unknown[]) => sequelize().query(query, { bind: params, type: QueryTypes.SELECT }),
+};
+
+/** express-session for the API; one store per app (it keeps no timers: expired rows are pruned by a job). */
+export function sessionMiddleware(): RequestHandler {
+  const e = env();
+  const PgStore = connectPgSimple(session);
+  const store = new PgStore({
+    pgPromise: sequelizeAdapter,
+    tableName: "sessions",
+    createTableIfMissing: false,
+    pruneSessionInterval: false,
+    errorLog: (...args: unknown[]) => logger.warn({ detail: args.map(String).join(" ") }, "session store error"),
+  });
+  return session({
+    name: sessionCookieName(e.NODE_ENV === "production"),
+    secret: e.SESSION_SECRET,
+    store,
+    resave: false,
+    saveUninitialized: false,
+    rolling: true,
+    proxy: e.TRUST_PROXY ? true : undefined,
+    cookie: { ...cookieOptions(), maxAge: IDLE_TIMEOUT_MS },
+  });
+}
+
+/** passport.initialize() + passport.session(): sets req.user from the session's person id. */
+export function passportMiddleware(): RequestHandler[] {
+  return [passport.initialize(), passport.session()];
+}
+
+function info(signedInAt: number, now = Date.now()): SessionInfo {
+  const absoluteEnd = signedInAt + ABSOLUTE_TIMEOUT_MS;
+  const end = Math.min(now + IDLE_TIMEOUT_MS, absoluteEnd);
+  return {
+    expiresAt: new Date(end).toISOString(),
+    expiresInSeconds: Math.max(0, Math.floor((end - now) / 1000)),
+    absoluteExpiresAt: new Date(absoluteEnd).toISOString(),
+    idleTimeoutSeconds: IDLE_TIMEOUT_MS / 1000,
+  };
+}
+
+/**
+ * After passport: ends a session past its absolute limit or whose person can no longer sign
+ * in (disabled, deleted), and tells signed-in clients how long they have left.
+ */
+export const sessionLifetime: RequestHandler = (req, res, next) => {
+  const s = req.session;
+  if (!s?.signedInAt) return next();
+  const caller = req.user as Caller | undefined;
+  const now = Date.now();
+  if (!caller || now - s.signedInAt >= ABSOLUTE_TIMEOUT_MS) {
+    logSecurityEvent("session_expired", {
+      requestId: String(req.id ?? ""),
+      ip: req.ip ?? "",
+      userId: caller?.id ?? s.passport?.user,
+      reason: caller ? "absolute_timeout" : "account_not_active",
+    });
+    req.user = undefined;
+    // A fresh, empty session: the old row is deleted and the request goes on as a visitor.
+    s.regenerate((err) => next(err));
+    return;
+  }
+  res.setHeader(SESSION_EXPIRES_HEADER, String(info(s.signedInAt, now).expiresInSeconds));
+  next();
+};
+
+/** What a route may do with the session, without touching `req` or `res`. */
+export interface SessionControl {
+  /** Runs passport-local on the request body: the person, or false for a wrong e-mail or password. */
+  authenticate(): Promise<Caller | false>;
+  /** A new session id (fixation defence), the person in it, and the sign-in time. */
+  signIn(caller: Caller): Promise<void>;
+  /** Deletes the session row and clears the cookie. */
+  signOut(): Promise<void>;
+  /** Time left; undefined when nobody is signed in. */
+  info(): SessionInfo | undefined;
+  /** The session id, to spare the current session when ending a person's others. Never log it. */
+  id(): string | undefined;
+  /** The CSRF token of this session (created on first use). */
+  csrfToken(): string;
+}
+
+function control(req: Request, res: Response, next: NextFunction): SessionControl {
+  return {
+    authenticate: () =>
+      new Promise((resolve, reject) => {
+        passport.authenticate("local", { session: false }, (err: unknown, user: Caller | false) => {
+          if (err) reject(err);
+          else resolve(user || false);
+        })(req, res, next);
+      }),
+    signIn: (caller) =>
+      new Promise((resolve, reject) => {
+        req.login(caller, (err) => {
+          if (err) return reject(err);
+          req.session.signedInAt = Date.now();
+          resolve();
+        });
+      }),
+    signOut: () =>
+      new Promise((resolve, reject) => {
+        req.user = undefined;
+        if (!req.session) return resolve();
+        req.session.destroy((err) => {
+          if (err) return reject(err);
+          res.clearCookie(sessionCookieName(), cookieOptions());
+          resolve();
+        });
+      }),
+    info: () => (req.user && req.session?.signedInAt ? info(req.session.signedInAt) : undefined),
+    id: () => (req.session ? req.sessionID : undefined),
+    csrfToken: () => csrfTokenFor(req),
+  };
+}
+
+type Schemas = { body?: z.ZodType; query?: z.ZodType; params?: z.ZodType };
+
+/** `handle()` plus a {@link SessionControl} for the few routes that start, end or inspect a session. */
+export function handleWithSession<S extends Schemas>(
+  schemas: S,
+  handler: (input: HandlerInput<S> & { session: SessionControl }) => Promise<Reply | void> | Reply | void,
+): RequestHandler {
+  return (req, res, next) => handle(schemas, (input) => handler({ ...input, session: control(req, res, next) }))(req, res, next);
+}

@@ -1,0 +1,110 @@
+import { appUrl } from "../../config/env";
+import { sequelize } from "../../db/sequelize";
+import { AppError, badRequest } from "../../lib/app-error";
+import { isCommonPassword } from "../../lib/common-passwords";
+import { dummyPasswordHash, hashPassword, verifyPassword } from "../../lib/password";
+import { logSecurityEvent } from "../../lib/security-log";
+import { hashToken, newOneTimeToken } from "../../lib/tokens";
+import type { Caller } from "../../middleware/handle";
+import { enqueueEmail } from "../outbox/outbox.service";
+import { passwordResetEmail } from "../outbox/templates";
+import * as repo from "./auth.repository";
+
+export interface RequestContext {
+  requestId: string;
+  ip: string;
+}
+
+export const RESET_LINK_TTL_MS = 60 * 60_000;
+/** At most this many reset e-mails per account per hour, so the form cannot flood an inbox. */
+const RESETS_PER_HOUR = 3;
+
+/** One answer for an unknown e-mail and a wrong password, so neither reveals which accounts exist. */
+export const invalidCredentials = () =>
+  new AppError(401, "invalid_credentials", "The e-mail address or the password is not right. Check both and try again.");
+
+/**
+ * Checks an e-mail and password. Unknown, invited and disabled accounts still cost one argon2
+ * verification (against a dummy hash), so the answer takes about as long either way.
+ */
+export async function verifyCredentials(email: string, password: string, ctx: RequestContext): Promise<Caller | null> {
+  const record = await repo.findByEmail(email);
+  const usable = record && record.status === "active" && record.passwordHash;
+  const ok = await verifyPassword(usable ? record.passwordHash! : await dummyPasswordHash(), password);
+  if (usable && ok) {
+    logSecurityEvent("sign_in_succeeded", { ...ctx, userId: record.caller.id, email });
+    return record.caller;
+  }
+  const reason = !record ? "unknown_account" : record.status !== "active" ? `account_${record.status}` : "wrong_password";
+  logSecurityEvent("sign_in_failed", { ...ctx, email, userId: record?.caller.id, reason });
+  return null;
+}
+
+/** The person a session belongs to, as long as the account is still active. */
+export function sessionCaller(personId: number): Promise<Caller | null> {
+  return repo.findActiveCaller(personId);
+}
+
+/** Refuses passwords on the common-password list with a field error (length is the schema's job). */
+export function assertAcceptablePassword(password: string, field: string): void {
+  if (isCommonPassword(password)) {
+    throw badRequest("Please choose a less common password.", {
+      [field]: "This password is on the list of most common passwords, which attackers try first. Choose another.",
+    });
+  }
+}
+
+/**
+ * Queues a reset e-mail when an active account has this address. The answer never says whether
+ * it does (the route always replies 202).
+ */
+export async function requestPasswordReset(email: string, ctx: RequestContext, now = new Date()): Promise<void> {
+  logSecurityEvent("password_reset_requested", { ...ctx, email });
+  const record = await repo.findByEmail(email);
+  if (!record || record.status !== "active") return;
+  const personId = record.caller.id;
+  await sequelize().transaction(async (t) => {
+    if ((await repo.countRecentResets(personId, new Date(now.getTime() - 60 * 60_000), t)) >= RESETS_PER_HOUR) return;
+    const { token, hash } = newOneTimeToken();
+    const expiresAt = new Date(now.getTime() + RESET_LINK_TTL_MS);
+    await repo.insertReset(t, personId, hash, expiresAt);
+    await enqueueEmail(
+      t,
+      passwordResetEmail({ to: record.caller.email, name: record.caller.name, link: `${appUrl()}/reset-password/${token}`, expiresAt }),
+    );
+  });
+}
+
+const linkGone = (message: string) => new AppError(410, "link_expired", message);
+const linkUnknown = () =>
+  new AppError(404, "link_not_found", "This reset link is not valid. Copy the whole link from the e-mail, or ask for a new one.");
+
+async function usableReset(t: Parameters<typeof repo.findResetForUpdate>[0], token: string, now: Date) {
+  const reset = await repo.findResetForUpdate(t, hashToken(token));
+  if (!reset) throw linkUnknown();
+  if (reset.usedAt) throw linkGone("This reset link has already been used. Ask for a new one if you still need it.");
+  if (reset.expiresAt.getTime() <= now.getTime()) throw linkGone("This reset link has expired (links work for one hour). Ask for a new one.");
+  if (reset.personStatus !== "active") throw linkGone("This account is not active. Ask your coordinator for help.");
+  return reset;
+}
+
+/** Whether a reset link can still be used (the page checks before showing the form). */
+export async function checkResetLink(token: string, now = new Date()): Promise<void> {
+  await sequelize().transaction(async (t) => {
+    await usableReset(t, token, now);
+  });
+}
+
+/** Sets the new password from a one-time link and ends every session of that person. */
+export async function completePasswordReset(token: string, password: string, ctx: RequestContext, now = new Date()): Promise<void> {
+  assertAcceptablePassword(password, "password");
+  const passwordHash = await hashPassword(password);
+  const personId = await sequelize().transaction(async (t) => {
+    const reset = await usableReset(t, token, now);
+    await repo.setPassword(t, reset.personId, passwordHash);
+    await repo.useResets(t, reset.personId);
+    await repo.deleteSessionsOf(reset.personId, undefined, t);
+    return reset.personId;
+  });
+  logSecurityEvent("password_reset_completed", { ...ctx, userId: personId });
+}

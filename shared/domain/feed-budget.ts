@@ -30,6 +30,7 @@ import {
 import { TOO_COLD_BELOW_C, temperatureFactor } from "./temperature";
 
 export { temperatureFactor, pickDigesterTemperature, latestReadingWithin } from "./temperature";
+/** Reading types used with the temperature helpers re-exported above. */
 export type { TimedReading, PickedTemperature, TemperatureBasis } from "./temperature";
 
 /** Highest OLRref a steward may set without a recorded reason, kg VS/m³/d [2ary: Energies 2020 13:1279, heated stirred food-waste digesters]. */

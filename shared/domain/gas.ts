@@ -42,6 +42,7 @@ export const METHANE_LHV_MJ_PER_M3 = 35.8;
 export const DEFAULT_BURNER_LITRES_PER_HOUR = 350;
 /** Range in which μm(T) = 0.013·T − 0.129 was fitted, °C (Hashimoto, Chen & Varel 1981). */
 export const MU_MAX_VALID_FROM_C = 20;
+/** Upper end of the μm(T) fit, °C (Hashimoto, Chen & Varel 1981 [memory]). */
 export const MU_MAX_VALID_TO_C = 60;
 
 /**

@@ -130,6 +130,7 @@ export function ratioAdvice(vfaTaRatio: number): string {
 
 /** Nordmann's reference conditions: a 20 mL sample titrated with 0.1 N sulphuric acid (ManTech Method Abstract #127 [read]). */
 export const NORDMANN_SAMPLE_ML = 20;
+/** Normality of the reference acid, N (ManTech Method Abstract #127 [read]). */
 export const NORDMANN_ACID_NORMALITY = 0.1;
 
 /** Result of {@link nordmannTitration}. */

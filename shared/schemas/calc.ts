@@ -18,6 +18,7 @@ function numberIn(label: string, min: number, max: number, unit: string) {
 /** Highest reference loading rate accepted with a recorded reason, kg VS/m³/d; the domain caps at 2.0 without one. */
 export const OLR_REF_MAX_WITH_REASON = 5;
 
+/** Feed-budget request: a digester's volume, temperature, readings and feeding history (see `computeFeedBudget`). */
 export const FeedBudgetRequestSchema = z
   .object({
     workingVolumeM3: numberIn("Working volume", 0.05, 100, "m³"),
@@ -66,6 +67,7 @@ export type FeedBudgetRequest = z.infer<typeof FeedBudgetRequestSchema>;
 
 const kgVsPerDayOrNull = z.number().min(0).nullable();
 
+/** One warning beside a feed budget. */
 export const FeedWarningSchema = z.object({
   code: z.enum(FEED_WARNING_CODES),
   severity: z.enum(FEED_WARNING_SEVERITIES),
@@ -74,6 +76,7 @@ export const FeedWarningSchema = z.object({
 });
 export type FeedWarningDto = z.infer<typeof FeedWarningSchema>;
 
+/** Feed-budget response: kg VS, kg of scraps and buckets still welcome today, every limit, the binding one and why. */
 export const FeedBudgetResponseSchema = z.object({
   budgetKgVs: z.number().min(0),
   budgetKgScraps: z.number().min(0),
@@ -96,6 +99,7 @@ export type FeedBudgetResponse = z.infer<typeof FeedBudgetResponseSchema>;
 const drumDiameterM = numberIn("Drum diameter", 0.2, 5, "m");
 const drumMassKg = numberIn("Drum mass", 0.5, 5000, "kg");
 
+/** Gas-holder request: floating drum size and mass, optional weights, rise and burner flow. */
 export const GasHolderRequestSchema = z
   .object({
     drumDiameterM,
@@ -107,6 +111,7 @@ export const GasHolderRequestSchema = z
   .strict();
 export type GasHolderRequest = z.infer<typeof GasHolderRequestSchema>;
 
+/** Gas-holder response: pressure in Pa, mbar and mm WC; stored litres and cooking minutes when the rise was given. */
 export const GasHolderResponseSchema = z.object({
   pressurePa: z.number(),
   pressureMbar: z.number(),
@@ -117,6 +122,7 @@ export const GasHolderResponseSchema = z.object({
 });
 export type GasHolderResponse = z.infer<typeof GasHolderResponseSchema>;
 
+/** Weights-for-pressure request: drum and the pressure wanted. */
 export const WeightsForPressureRequestSchema = z
   .object({
     drumDiameterM,
@@ -126,6 +132,7 @@ export const WeightsForPressureRequestSchema = z
   .strict();
 export type WeightsForPressureRequest = z.infer<typeof WeightsForPressureRequestSchema>;
 
+/** Weights-for-pressure response: mass to add (0 when the drum alone exceeds the target, with a note first in cautions). */
 export const WeightsForPressureResponseSchema = z.object({
   addedMassKg: z.number().min(0),
   cautions: z.array(z.string()),
@@ -134,6 +141,7 @@ export type WeightsForPressureResponse = z.infer<typeof WeightsForPressureRespon
 
 // ── Sizing ─────────────────────────────────────────────────────────────────
 
+/** Sizing from daily slurry and retention time (V = S_d × RT). */
 export const SizingFromSlurryRequestSchema = z
   .object({
     dailySlurryLitres: numberIn("Daily slurry", 1, 10000, "L/day"),
@@ -142,6 +150,7 @@ export const SizingFromSlurryRequestSchema = z
   .strict();
 export type SizingFromSlurryRequest = z.infer<typeof SizingFromSlurryRequestSchema>;
 
+/** Sizing from daily scraps at a digester temperature. */
 export const SizingFromScrapsRequestSchema = z
   .object({
     dailyScrapsKg: numberIn("Daily scraps", 0.1, 2000, "kg"),
@@ -153,19 +162,23 @@ export const SizingFromScrapsRequestSchema = z
   .strict();
 export type SizingFromScrapsRequest = z.infer<typeof SizingFromScrapsRequestSchema>;
 
+/** Sizing request: one of the two shapes above, each strict. */
 export const SizingRequestSchema = z.union([SizingFromSlurryRequestSchema, SizingFromScrapsRequestSchema], {
   error:
     "Give either dailySlurryLitres and retentionDays, or dailyScrapsKg and temperatureC (optionally scrapsTsPercent and targetTsPercent) — not a mix of both.",
 });
 export type SizingRequest = z.infer<typeof SizingRequestSchema>;
 
+/** Sizing response for the slurry shape. */
 export const SizingFromSlurryResponseSchema = z.object({ workingVolumeM3: z.number().min(0) });
+/** Sizing response for the scraps shape. */
 export const SizingFromScrapsResponseSchema = z.object({
   workingVolumeM3: z.number().min(0),
   dailySlurryLitres: z.number().min(0),
   retentionDays: z.number().min(0),
   dilutionWaterLitresPerDay: z.number().min(0),
 });
+/** Sizing response: either shape. */
 export const SizingResponseSchema = z.union([SizingFromScrapsResponseSchema, SizingFromSlurryResponseSchema]);
 export type SizingFromSlurryResponse = z.infer<typeof SizingFromSlurryResponseSchema>;
 export type SizingFromScrapsResponse = z.infer<typeof SizingFromScrapsResponseSchema>;
@@ -173,6 +186,7 @@ export type SizingResponse = z.infer<typeof SizingResponseSchema>;
 
 // ── Methane yield ──────────────────────────────────────────────────────────
 
+/** Methane-yield request: Chen–Hashimoto inputs. */
 export const MethaneYieldRequestSchema = z
   .object({
     b0M3PerKgVs: numberIn("Ultimate methane yield B0", 0.05, 1, "m³ CH4/kg VS"),
@@ -184,6 +198,7 @@ export const MethaneYieldRequestSchema = z
   .strict();
 export type MethaneYieldRequest = z.infer<typeof MethaneYieldRequestSchema>;
 
+/** Methane-yield response: μm (1/d), K, γ (m³ CH4/m³/d) and whether the microbes wash out. */
 export const MethaneYieldResponseSchema = z.object({
   muMaxPerDay: z.number(),
   k: z.number(),
@@ -194,6 +209,7 @@ export type MethaneYieldResponse = z.infer<typeof MethaneYieldResponseSchema>;
 
 // ── Titration ──────────────────────────────────────────────────────────────
 
+/** Titration request: Nordmann A and B volumes, optional sample volume and acid normality. */
 export const TitrationRequestSchema = z
   .object({
     aMl: numberIn("A (acid to pH 5.0)", 0.1, 100, "mL"),
@@ -204,6 +220,7 @@ export const TitrationRequestSchema = z
   .strict();
 export type TitrationRequest = z.infer<typeof TitrationRequestSchema>;
 
+/** Titration response: TAC (mg/L CaCO3), FOS (mg/L acetic acid), FOS/TAC and advice. */
 export const TitrationResponseSchema = z.object({
   tacMgPerL: z.number().min(0),
   fosMgPerL: z.number().min(0),
@@ -214,6 +231,7 @@ export type TitrationResponse = z.infer<typeof TitrationResponseSchema>;
 
 // ── Fertiliser allowance ───────────────────────────────────────────────────
 
+/** Fertiliser-allowance request: bed area, digestate nitrogen and an optional limit. */
 export const FertiliserAllowanceRequestSchema = z
   .object({
     bedAreaM2: numberIn("Bed area", 0.1, 100000, "m²"),
@@ -223,6 +241,7 @@ export const FertiliserAllowanceRequestSchema = z
   .strict();
 export type FertiliserAllowanceRequest = z.infer<typeof FertiliserAllowanceRequestSchema>;
 
+/** Fertiliser-allowance response: undiluted litres per year, dilution advice and cautions. */
 export const FertiliserAllowanceResponseSchema = z.object({
   litresPerYear: z.number().min(0),
   dilution: z.string(),

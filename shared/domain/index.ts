@@ -10,3 +10,4 @@ export * from "./feed-budget";
 export * from "./gas";
 export * from "./digestate";
 export * from "./calculators";
+export * from "./drop-offs";

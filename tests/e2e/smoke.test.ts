@@ -30,7 +30,7 @@ describe("browser smoke", () => {
     await page.goto(h.baseUrl + "/map");
     await page.getByRole("heading", { name: "Digester map" }).waitFor();
     // The offline basemap draws streets as SVG paths inside Leaflet's overlay pane.
-    await page.locator(".leaflet-overlay-pane path").first().waitFor({ timeout: 15_000 });
+    await page.locator(".leaflet-overlay-pane path").first().waitFor({ state: "attached", timeout: 15_000 });
     const streetPaths = await page.locator(".leaflet-overlay-pane path").count();
     expect(streetPaths).toBeGreaterThan(10);
     const markers = await page.locator(".hl-marker").count();
@@ -46,6 +46,7 @@ describe("browser smoke", () => {
   it("when the keyboard user presses Tab first, then a skip link leads to the main content", async () => {
     const page = await h.newPage();
     await page.goto(h.baseUrl + "/");
+    await page.getByRole("heading", { level: 1 }).waitFor();
     await page.keyboard.press("Tab");
     const focused = await page.evaluate(() => document.activeElement?.textContent);
     expect(focused).toBe("Skip to main content");

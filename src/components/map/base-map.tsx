@@ -34,7 +34,12 @@ export function BaseMap({ center, zoom = 16, bounds, label, className, children 
   const basemap = useOfflineBasemap(offline);
   return (
     <div role="region" aria-label={label} className={className}>
-      <MapContainer center={center} zoom={zoom} bounds={bounds} scrollWheelZoom={false} className="h-full w-full rounded-md bg-surface-muted">
+      {/* react-leaflet uses center+zoom when both are given, so bounds (when known) go alone. */}
+      <MapContainer
+        {...(bounds ? { bounds } : { center, zoom })}
+        scrollWheelZoom={false}
+        className="h-full w-full rounded-md bg-surface-muted"
+      >
         {offline ? (
           basemap && (
             <GeoJSON data={basemap} style={featureStyle} interactive={false} />

@@ -1,5 +1,6 @@
 /** Starts maildev (SMTP fake + web inbox) on loopback as a child process and waits for it. */
 import { spawn, type ChildProcess } from "node:child_process";
+import { readFileSync } from "node:fs";
 import path from "node:path";
 
 export interface MailDevHandle {
@@ -19,7 +20,9 @@ async function healthy(webPort: number) {
 /** Returns undefined when a maildev already answers on the web port (reused, not ours to stop). */
 export async function startMailDev(smtpPort: number, webPort: number, root: string): Promise<MailDevHandle | undefined> {
   if (await healthy(webPort)) return undefined;
-  const bin = path.join(root, "node_modules", "maildev", "bin", "maildev");
+  const pkgFile = path.join(root, "node_modules", "maildev", "package.json");
+  const pkg = JSON.parse(readFileSync(pkgFile, "utf8")) as { bin: Record<string, string> };
+  const bin = path.join(path.dirname(pkgFile), pkg.bin.maildev!);
   const child = spawn(
     process.execPath,
     [bin, "--smtp", String(smtpPort), "--web", String(webPort), "--ip", "127.0.0.1", "--web-ip", "127.0.0.1", "--silent"],

@@ -11,7 +11,7 @@ import session from "express-session";
 import connectPgSimple from "connect-pg-simple";
 import { QueryTypes } from "sequelize";
 import type { z } from "zod";
-import { env } from "../config/env";
+import { env, type Env } from "../config/env";
 import { sequelize } from "../db/sequelize";
 import { logger } from "../lib/logger";
 import { passport } from "../lib/passport";
@@ -33,14 +33,16 @@ declare module "express-session" {
   }
 }
 
-/** `__Host-` in production: the browser then insists on Secure, Path=/ and no Domain. */
-export function sessionCookieName(production = env().NODE_ENV === "production"): string {
-  return production ? "__Host-hearthloop.sid" : "hearthloop.sid";
-}
-
-function cookieOptions() {
-  const production = env().NODE_ENV === "production";
-  return { httpOnly: true, sameSite: "lax" as const, secure: production, path: "/" };
+/**
+ * Cookie name and flags: HttpOnly, SameSite=Lax, Path=/, and in production Secure with the
+ * `__Host-` prefix (the browser then refuses it without Secure, with a Domain or another Path).
+ */
+export function sessionCookieSettings(e: Env = env()) {
+  const production = e.NODE_ENV === "production";
+  return {
+    name: production ? "__Host-hearthloop.sid" : "hearthloop.sid",
+    cookie: { httpOnly: true, sameSite: "lax" as const, secure: production, path: "/" },
+  };
 }
 
 /** connect-pg-simple's `pgPromise` hook, answered by Sequelize so sessions use the app's one pool. */
@@ -51,6 +53,7 @@ const sequelizeAdapter = {
 /** express-session for the API; one store per app (it keeps no timers: expired rows are pruned by a job). */
 export function sessionMiddleware(): RequestHandler {
   const e = env();
+  const { name, cookie } = sessionCookieSettings(e);
   const PgStore = connectPgSimple(session);
   const store = new PgStore({
     pgPromise: sequelizeAdapter,
@@ -60,14 +63,14 @@ export function sessionMiddleware(): RequestHandler {
     errorLog: (...args: unknown[]) => logger.warn({ detail: args.map(String).join(" ") }, "session store error"),
   });
   return session({
-    name: sessionCookieName(e.NODE_ENV === "production"),
+    name,
     secret: e.SESSION_SECRET,
     store,
     resave: false,
     saveUninitialized: false,
     rolling: true,
     proxy: e.TRUST_PROXY ? true : undefined,
-    cookie: { ...cookieOptions(), maxAge: IDLE_TIMEOUT_MS },
+    cookie: { ...cookie, maxAge: IDLE_TIMEOUT_MS },
   });
 }
 
@@ -151,7 +154,8 @@ function control(req: Request, res: Response, next: NextFunction): SessionContro
         if (!req.session) return resolve();
         req.session.destroy((err) => {
           if (err) return reject(err);
-          res.clearCookie(sessionCookieName(), cookieOptions());
+          const { name, cookie } = sessionCookieSettings();
+          res.clearCookie(name, cookie);
           resolve();
         });
       }),

@@ -34,7 +34,7 @@ export function uniqueEmail(label = "person"): string {
 }
 
 /** Runs SQL with `$1`-style parameters and returns the rows (for arranging and asserting). */
-export async function sql<T = Record<string, unknown>>(query: string, bind: unknown[] = []): Promise<T[]> {
+export async function sql<T extends object = Record<string, unknown>>(query: string, bind: unknown[] = []): Promise<T[]> {
   return sequelize().query<T>(query, { bind, type: QueryTypes.SELECT });
 }
 

@@ -5,11 +5,14 @@ import { authRouter } from "./modules/auth/auth.routes";
 import { peopleRouter } from "./modules/people/people.routes";
 import { accountRouter } from "./modules/account/account.routes";
 import { outboxRouter } from "./modules/outbox/outbox.routes";
+import { calcRouter } from "./modules/calc/calc.routes";
 
 /** Every API router, mounted under /api. */
 export function apiRouter() {
   const router = Router();
   router.use(healthRouter);
+  // Public and stateless: before any router that might guard everything it sees.
+  router.use(calcRouter());
   router.use(digestersRouter);
   router.use(authRouter());
   router.use(peopleRouter());

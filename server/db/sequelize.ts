@@ -3,10 +3,7 @@ import pg from "pg";
 import { env } from "../config/env";
 import { logger } from "../lib/logger";
 
-// NUMERIC columns come back from pg as strings; our quantities fit a double comfortably.
-pg.types.setTypeParser(pg.types.builtins.NUMERIC, (v) => (v === null ? null : Number(v)));
-// Dates (no time) stay plain ISO strings: a calendar day, not a moment.
-pg.types.setTypeParser(pg.types.builtins.DATE, (v) => v);
+// Sequelize returns NUMERIC columns as strings: repositories cast to float8 in SQL or Number() them.
 
 let instance: Sequelize | undefined;
 

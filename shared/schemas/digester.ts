@@ -1,4 +1,6 @@
 import { z } from "zod";
+import { FEED_BINDINGS } from "../domain/feed-budget";
+import { FeedWarningSchema } from "./calc";
 
 export const DigesterStatusSchema = z.enum(["active", "resting", "offline"]);
 export type DigesterStatus = z.infer<typeof DigesterStatusSchema>;
@@ -19,3 +21,32 @@ export const PublicDigesterSchema = z.object({
 });
 export type PublicDigester = z.infer<typeof PublicDigesterSchema>;
 export const PublicDigesterListSchema = z.array(PublicDigesterSchema);
+
+/** Today's room at a digester, as every signed-in person sees it. */
+export const DigesterTodaySchema = z.object({
+  date: z.string(),
+  budgetKgVs: z.number(),
+  budgetKgScraps: z.number(),
+  budgetBuckets: z.number(),
+  binding: z.enum(FEED_BINDINGS),
+  explanation: z.string(),
+  warnings: z.array(FeedWarningSchema),
+  /** Drop-offs waiting for a steward today, kg of scraps. */
+  pendingKgScraps: z.number(),
+  temperatureC: z.number().nullable(),
+});
+export type DigesterToday = z.infer<typeof DigesterTodaySchema>;
+
+/** `GET /api/digesters`: each digester with its state today. */
+export const DigesterSummarySchema = z.object({
+  id: z.number().int(),
+  name: z.string(),
+  status: DigesterStatusSchema,
+  statusReason: z.string().nullable(),
+  location: LatLngSchema,
+  siteDescription: z.string(),
+  workingVolumeM3: z.number(),
+  today: DigesterTodaySchema,
+});
+export type DigesterSummary = z.infer<typeof DigesterSummarySchema>;
+export const DigesterSummaryListSchema = z.array(DigesterSummarySchema);

@@ -1,5 +1,6 @@
 import { Router } from "express";
 import { handle } from "../../middleware/handle";
+import { requireAuth } from "../../middleware/require-auth";
 import * as service from "./digesters.service";
 
 export const digestersRouter = Router();
@@ -8,4 +9,11 @@ export const digestersRouter = Router();
 digestersRouter.get(
   "/public/digesters",
   handle({}, async () => ({ body: await service.publicDigesters() })),
+);
+
+/** Signed in: every digester with today's feed budget and the binding limit. */
+digestersRouter.get(
+  "/digesters",
+  requireAuth,
+  handle({}, async () => ({ body: await service.listDigestersToday() })),
 );

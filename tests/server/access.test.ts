@@ -1,0 +1,209 @@
+/**
+ * The route × role table (QUALITY.md, Security → Access): for EVERY API route, the status that
+ * anonymous, resident, steward, coordinator and gardener get for a representative request.
+ * The first test walks the Express router of createApp() and fails on any route missing here
+ * (or any row whose route no longer exists).
+ *
+ * Adding a route: add one row to `table` below, in its module's group:
+ *
+ * ```ts
+ * row("POST /api/digesters/:id/readings", only(["steward", "coordinator"], 201), {
+ *   request: (ctx) => ({ path: `/api/digesters/${ctx.ownDigesterId}/readings`, body: { temperatureC: 31 } }),
+ * }),
+ * ```
+ *
+ * - `everyone(s)`: the same status for all five; `signedIn(s)`: 401 for anonymous, `s` for the
+ *   rest; `only([...roles], s)`: 401 anonymous, `s` for those roles, 403 for the others. Spread
+ *   and override for object-level cases: `{ ...only(["steward"], 200), coordinator: 200 }`.
+ * - `request(ctx)` returns the concrete path (fill `:params`) and body. `ctx` gives the caller
+ *   (`ctx.person`), a digester the steward looks after (`ownDigesterId`) and one nobody here
+ *   looks after (`otherDigesterId`), and the resident's household and another one. Without
+ *   `request`, `:params` become 1 and there is no body.
+ * - Each role's client has a valid CSRF token; `fresh: true` signs in a new person of that role
+ *   for the row (for requests that end or replace the session).
+ */
+import { beforeAll, describe, expect, it } from "vitest";
+import { createApp } from "../../server/app";
+import {
+  anonymousClient,
+  createDigester,
+  createHousehold,
+  createPerson,
+  signedInClient,
+  uniqueEmail,
+  type ApiClient,
+  type CreatePersonOptions,
+  type TestPerson,
+} from "../helpers/db";
+import { listApiRoutes, parseRoute } from "../helpers/routes";
+
+const ROLES = ["anonymous", "resident", "steward", "coordinator", "gardener"] as const;
+type Who = (typeof ROLES)[number];
+type Expectation = Record<Who, number>;
+
+interface AccessContext {
+  who: Who;
+  /** The signed-in person (undefined for anonymous). */
+  person: TestPerson | undefined;
+  /** A digester the table's steward looks after. */
+  ownDigesterId: number;
+  /** A digester nobody in the table looks after. */
+  otherDigesterId: number;
+  /** The table's resident's household. */
+  ownHouseholdId: number;
+  /** A household none of the table's people belong to. */
+  otherHouseholdId: number;
+}
+
+interface Row {
+  route: string;
+  expect: Expectation;
+  request?: (ctx: AccessContext) => Promise<{ path?: string; body?: unknown }> | { path?: string; body?: unknown };
+  fresh?: boolean;
+}
+
+const everyone = (status: number): Expectation => ({ anonymous: status, resident: status, steward: status, coordinator: status, gardener: status });
+const signedIn = (status: number): Expectation => ({ ...everyone(status), anonymous: 401 });
+const only = (roles: Exclude<Who, "anonymous">[], status: number): Expectation => ({
+  anonymous: 401,
+  resident: roles.includes("resident") ? status : 403,
+  steward: roles.includes("steward") ? status : 403,
+  coordinator: roles.includes("coordinator") ? status : 403,
+  gardener: roles.includes("gardener") ? status : 403,
+});
+const row = (route: string, expectation: Expectation, options: Omit<Row, "route" | "expect"> = {}): Row => ({
+  route,
+  expect: expectation,
+  ...options,
+});
+
+/** A well-formed one-time token that matches nothing. */
+const unknownToken = () => "Z".repeat(20) + Math.random().toString(36).slice(2, 12).padEnd(23, "x");
+
+const table: Row[] = [
+  // ── foundation ──
+  row("GET /api/health", everyone(200)),
+  row("GET /api/public/digesters", everyone(200)),
+  row("GET /api/digesters", signedIn(200)),
+
+  // ── auth (issue 3) ──
+  row("GET /api/auth/csrf", everyone(200)),
+  // A wrong password for an unknown address: 401 for everyone (a unique address, so no throttling).
+  row("POST /api/auth/login", everyone(401), { request: () => ({ body: { email: uniqueEmail("access"), password: "not-the-password" } }) }),
+  row("GET /api/auth/me", signedIn(200)),
+  row("POST /api/auth/logout", everyone(204), { fresh: true }),
+  row("GET /api/auth/session", signedIn(200)),
+  row("POST /api/auth/session", signedIn(200), { request: () => ({ body: {} }) }),
+  row("POST /api/auth/password-reset", everyone(202), { request: () => ({ body: { email: uniqueEmail("access-reset") } }) }),
+  row("GET /api/auth/password-reset/:token", everyone(404), { request: () => ({ path: `/api/auth/password-reset/${unknownToken()}` }) }),
+  row("POST /api/auth/password-reset/:token", everyone(404), {
+    request: () => ({ path: `/api/auth/password-reset/${unknownToken()}`, body: { password: "a long new passphrase" } }),
+  }),
+
+  // ── people (issue 3) ──
+  row("GET /api/people", only(["coordinator"], 200)),
+  row("POST /api/people/invitations", only(["coordinator"], 201), {
+    request: () => ({ body: { email: uniqueEmail("access-invite"), roles: ["resident"] } }),
+  }),
+  row("PATCH /api/people/:id", only(["coordinator"], 200), {
+    request: async () => ({ path: `/api/people/${(await createPerson()).id}`, body: { name: "Renamed by access test" } }),
+  }),
+  row("PUT /api/digesters/:id/stewards", only(["coordinator"], 200), {
+    request: async () => ({ path: `/api/digesters/${(await createDigester()).id}/stewards`, body: { personIds: [] } }),
+  }),
+  row("GET /api/invitations/:token", everyone(404), { request: () => ({ path: `/api/invitations/${unknownToken()}` }) }),
+  row("POST /api/invitations/:token/accept", everyone(404), {
+    request: () => ({ path: `/api/invitations/${unknownToken()}/accept`, body: { name: "Someone", password: "a long new passphrase" } }),
+  }),
+  row("GET /api/outbox-emails", only(["coordinator"], 200)),
+
+  // ── account (issue 3) ──
+  row("PATCH /api/account", signedIn(200), { request: () => ({ body: { name: "Renamed by access test" } }) }),
+  // A wrong current password: 400 for the signed-in, so the row changes nothing.
+  row("POST /api/account/password", signedIn(400), {
+    request: () => ({ body: { currentPassword: "not-the-password", newPassword: "a long new passphrase" } }),
+  }),
+  row("POST /api/account/email", signedIn(400), {
+    request: () => ({ body: { password: "not-the-password", newEmail: uniqueEmail("access-email") } }),
+  }),
+
+  // ── public calculators (stateless; an empty body is a 400 for anyone) ──
+  ...[
+    "feed-budget",
+    "fertiliser-allowance",
+    "gas-holder",
+    "methane-yield",
+    "sizing",
+    "titration",
+    "weights-for-pressure",
+  ].map((name) => row(`POST /api/calc/${name}`, everyone(400), { request: () => ({ body: {} }) })),
+];
+
+const app = createApp({ requestLogging: false });
+
+const personOptions: Record<Exclude<Who, "anonymous">, (ctx: { ownDigesterId: number; ownHouseholdId: number }) => CreatePersonOptions> = {
+  resident: (c) => ({ roles: ["resident"], householdId: c.ownHouseholdId }),
+  steward: (c) => ({ roles: ["steward"], stewardOf: [c.ownDigesterId] }),
+  coordinator: () => ({ roles: ["coordinator"] }),
+  gardener: () => ({ roles: ["gardener"] }),
+};
+
+let world: { ownDigesterId: number; otherDigesterId: number; ownHouseholdId: number; otherHouseholdId: number };
+const clients = new Map<Who, ApiClient>();
+
+async function clientOf(who: Who): Promise<ApiClient> {
+  if (who === "anonymous") return anonymousClient(app);
+  return signedInClient(app, personOptions[who](world));
+}
+
+beforeAll(async () => {
+  const own = await createDigester();
+  const other = await createDigester();
+  const home = await createHousehold({ assignedDigesterId: own.id });
+  const away = await createHousehold({ assignedDigesterId: other.id });
+  world = { ownDigesterId: own.id, otherDigesterId: other.id, ownHouseholdId: home.id, otherHouseholdId: away.id };
+  for (const who of ROLES) clients.set(who, await clientOf(who));
+});
+
+describe("route × role access table", () => {
+  it("when the router is walked, then every API route has a row and every row a route", () => {
+    const routes = listApiRoutes(app);
+    const declared = table.map((r) => r.route);
+    expect(routes.filter((r) => !declared.includes(r)), "routes missing from the access table").toEqual([]);
+    expect(declared.filter((r) => !routes.includes(r)), "rows for routes that do not exist").toEqual([]);
+    expect(new Set(declared).size, "each route declared once").toBe(declared.length);
+  });
+
+  it.each(table.map((r) => [r.route, r] as const))("%s", async (_name, entry) => {
+    const { method, path } = parseRoute(entry.route);
+    const got: Partial<Expectation> = {};
+    for (const who of ROLES) {
+      const client = entry.fresh ? await clientOf(who) : clients.get(who)!;
+      const ctx: AccessContext = { who, person: client.person, ...world };
+      const built = (await entry.request?.(ctx)) ?? {};
+      const url = built.path ?? path.replace(/:[A-Za-z]+/g, "1");
+      const verb = method.toLowerCase() as "get" | "post" | "put" | "patch" | "delete";
+      let req = client[verb](url);
+      if (built.body !== undefined) req = req.send(built.body as object);
+      const res = await req;
+      got[who] = res.status;
+    }
+    expect(got).toEqual(entry.expect);
+  });
+});
+
+describe("CSRF on every state-changing route", () => {
+  it("when a signed-in coordinator sends any POST, PUT, PATCH or DELETE without the token, then it is 403 (public calculators aside)", async () => {
+    const coordinator = clients.get("coordinator")!;
+    const results: Record<string, number> = {};
+    for (const route of listApiRoutes(app)) {
+      const { method, path } = parseRoute(route);
+      if (method === "GET" || path.startsWith("/api/calc/")) continue;
+      const verb = method.toLowerCase() as "post" | "put" | "patch" | "delete";
+      const res = await coordinator.agent[verb](path.replace(/:[A-Za-z]+/g, "1")).send({});
+      results[route] = res.status;
+    }
+    expect(Object.values(results).length).toBeGreaterThan(5);
+    for (const [route, status] of Object.entries(results)) expect({ route, status }).toEqual({ route, status: 403 });
+  });
+});

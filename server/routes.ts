@@ -6,6 +6,9 @@ import { peopleRouter } from "./modules/people/people.routes";
 import { accountRouter } from "./modules/account/account.routes";
 import { outboxRouter } from "./modules/outbox/outbox.routes";
 import { calcRouter } from "./modules/calc/calc.routes";
+import { householdsRouter } from "./modules/households/households.routes";
+import { dropOffsRouter } from "./modules/drop-offs/drop-offs.routes";
+import { streetsRouter } from "./modules/streets/streets.routes";
 
 /** Every API router, mounted under /api. */
 export function apiRouter() {
@@ -18,5 +21,8 @@ export function apiRouter() {
   router.use(peopleRouter());
   router.use(accountRouter());
   router.use(outboxRouter());
+  router.use(householdsRouter());
+  router.use(dropOffsRouter());
+  router.use(streetsRouter());
   return router;
 }

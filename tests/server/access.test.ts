@@ -30,6 +30,7 @@ import {
   createHousehold,
   createPerson,
   signedInClient,
+  sql,
   uniqueEmail,
   type ApiClient,
   type CreatePersonOptions,
@@ -125,6 +126,38 @@ const table: Row[] = [
   }),
   row("POST /api/account/email", signedIn(400), {
     request: () => ({ body: { password: "not-the-password", newEmail: uniqueEmail("access-email") } }),
+  }),
+
+  // ── households and drop-offs, resident side (issue 5) ──
+  row("GET /api/streets", everyone(200)),
+  // Coordinators get every household, everyone else only their own (or an empty list).
+  row("GET /api/households", signedIn(200)),
+  // A fresh resident is first taken out of the table's household, so they can register one.
+  row("POST /api/households", only(["resident"], 201), {
+    fresh: true,
+    request: async (ctx) => {
+      if (ctx.who === "resident") await sql(`UPDATE people SET household_id = NULL WHERE id = $1 RETURNING id`, [ctx.person!.id]);
+      return { body: { name: "Access-table household", location: { lat: 51.5, lng: -0.1 } } };
+    },
+  }),
+  row("GET /api/households/mine", signedIn(200)),
+  row("PATCH /api/households/mine", only(["resident"], 200), { request: () => ({ body: { addressText: "1 Access Row" } }) }),
+  row("POST /api/households/mine/members", only(["resident"], 201), { request: () => ({ body: { email: uniqueEmail("access-member") } }) }),
+  row("GET /api/households/mine/impact", signedIn(200)),
+  row("POST /api/drop-offs", only(["resident"], 201), {
+    request: (ctx) => ({ body: { digesterId: ctx.ownDigesterId, bucketCount: 1, bucketLitres: 10, noRefuseConfirmed: true } }),
+  }),
+  row("GET /api/drop-offs", signedIn(200), { request: () => ({ path: "/api/drop-offs?mine=true" }) }),
+  // The resident cancels a pending drop-off of their own household; the other roles are refused by role.
+  row("POST /api/drop-offs/:id/cancel", only(["resident"], 200), {
+    request: async (ctx) => {
+      const [d] = await sql<{ id: number }>(
+        `INSERT INTO drop_offs (household_id, digester_id, for_date, weight_kg, mass_source, fresh_kg, kg_vs)
+         VALUES ($1, $2, current_date, 2, 'weighed', 2, 0.4524) RETURNING id`,
+        [ctx.ownHouseholdId, ctx.ownDigesterId],
+      );
+      return { path: `/api/drop-offs/${d!.id}/cancel` };
+    },
   }),
 
   // ── public calculators (stateless; an empty body is a 400 for anyone) ──

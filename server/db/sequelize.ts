@@ -1,5 +1,5 @@
 import { Sequelize } from "sequelize";
-import pg from "pg";
+import type pg from "pg";
 import { env } from "../config/env";
 import { logger } from "../lib/logger";
 

@@ -51,10 +51,15 @@ describe("haversine distance", () => {
 
   it("when walking d metres on a bearing, then the haversine distance back is d", () => {
     fc.assert(
-      fc.property(latLng, fc.double({ min: 0, max: 360, noNaN: true }), fc.double({ min: 0, max: 50_000, noNaN: true }), (p, bearing, d) => {
-        const q = destinationPoint(p, bearing, d);
-        expect(haversineM(p, q)).toBeCloseTo(d, 3);
-      }),
+      fc.property(
+        latLng,
+        fc.double({ min: 0, max: 360, noNaN: true }),
+        fc.double({ min: 0, max: 50_000, noNaN: true }),
+        (p, bearing, d) => {
+          const q = destinationPoint(p, bearing, d);
+          expect(haversineM(p, q)).toBeCloseTo(d, 3);
+        },
+      ),
     );
   });
 });
@@ -81,10 +86,16 @@ describe("locations and boxes", () => {
 
   it("when a point lies within r metres of the centre, then the box around the centre contains it", () => {
     fc.assert(
-      fc.property(latLng, fc.double({ min: 0, max: 360, noNaN: true }), fc.double({ min: 1, max: 20_000, noNaN: true }), fc.double({ min: 0, max: 1, noNaN: true }), (c, bearing, r, share) => {
-        const p = destinationPoint(c, bearing, r * share);
-        expect(boxContains(boxAroundM(c, r * 1.000001), p)).toBe(true);
-      }),
+      fc.property(
+        latLng,
+        fc.double({ min: 0, max: 360, noNaN: true }),
+        fc.double({ min: 1, max: 20_000, noNaN: true }),
+        fc.double({ min: 0, max: 1, noNaN: true }),
+        (c, bearing, r, share) => {
+          const p = destinationPoint(c, bearing, r * share);
+          expect(boxContains(boxAroundM(c, r * 1.000001), p)).toBe(true);
+        },
+      ),
     );
   });
 

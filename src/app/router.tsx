@@ -20,6 +20,11 @@ export function createRouter() {
           lazy: async () => (await import("./routes/map")).createRoute(queryClient),
         },
         {
+          path: paths.plan(),
+          // The calculators and recharts load in their own chunk.
+          lazy: async () => (await import("./routes/plan")).route,
+        },
+        {
           path: "*",
           lazy: async () => (await import("./routes/not-found")).route,
         },

@@ -2,4 +2,5 @@
 export const paths = {
   home: () => "/",
   map: () => "/map",
+  plan: () => "/plan",
 } as const;

@@ -7,6 +7,7 @@ import { Spinner } from "@/components/ui";
 const navItems = [
   { to: paths.home(), label: "Home", end: true },
   { to: paths.map(), label: "Digester map", end: false },
+  { to: paths.plan(), label: "Plan a digester", end: false },
 ];
 
 function navClass({ isActive }: { isActive: boolean }) {

@@ -54,12 +54,15 @@ import { haversineM, isValidLatLng } from "./geo";
 /** One column of a HiGHS solution; `Primal` is missing when the solve produced no point. */
 export interface HighsColumnLike {
   readonly Primal?: number;
+  readonly Index?: number;
 }
 
 /** One row of a HiGHS solution (model order); `Dual` is present for LP solves. */
 export interface HighsRowLike {
   readonly Dual?: number;
   readonly Name?: string;
+  readonly Primal?: number;
+  readonly Index?: number;
 }
 
 /**

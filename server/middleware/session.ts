@@ -115,6 +115,11 @@ export const sessionLifetime: RequestHandler = (req, res, next) => {
   next();
 };
 
+/** The expiry header for an answer that has just started a session (the middleware set none: nobody was signed in yet). */
+export function sessionHeaders(current: SessionInfo | undefined): Record<string, string> {
+  return current ? { [SESSION_EXPIRES_HEADER]: String(current.expiresInSeconds) } : {};
+}
+
 /** What a route may do with the session, without touching `req` or `res`. */
 export interface SessionControl {
   /** Runs passport-local on the request body: the person, or false for a wrong e-mail or password. */

@@ -1,14 +1,22 @@
 import { createBrowserRouter, RouterProvider } from "react-router-dom";
-import { AppShell } from "@/components/layout/app-shell";
 import { RouteError } from "@/components/errors/route-error";
+import { Spinner } from "@/components/ui";
 import { paths } from "@/config/paths";
+import { meQueryOptions } from "@/features/auth/api/get-me";
 import { queryClient } from "./query";
+import { RootLayout } from "./root-layout";
 
 export function createRouter() {
   return createBrowserRouter([
     {
-      element: <AppShell />,
+      element: <RootLayout />,
       errorElement: <RouteError />,
+      // Who is signed in decides the navigation; a failed check just shows the visitor's view.
+      loader: async () => {
+        await queryClient.ensureQueryData(meQueryOptions()).catch(() => null);
+        return null;
+      },
+      hydrateFallbackElement: <Spinner label="Loading Hearthloop" />,
       children: [
         {
           path: paths.home(),
@@ -23,6 +31,30 @@ export function createRouter() {
           path: paths.plan(),
           // The calculators and recharts load in their own chunk.
           lazy: async () => (await import("./routes/plan")).route,
+        },
+        {
+          path: paths.signIn(),
+          lazy: async () => (await import("./routes/sign-in")).createRoute(queryClient),
+        },
+        {
+          path: paths.resetPassword(),
+          lazy: async () => (await import("./routes/reset-password")).route,
+        },
+        {
+          path: paths.resetPasswordWithToken(":token"),
+          lazy: async () => (await import("./routes/reset-password-token")).route,
+        },
+        {
+          path: paths.invitation(":token"),
+          lazy: async () => (await import("./routes/invitation")).route,
+        },
+        {
+          path: paths.account(),
+          lazy: async () => (await import("./routes/account")).createRoute(queryClient),
+        },
+        {
+          path: paths.people(),
+          lazy: async () => (await import("./routes/people")).createRoute(queryClient),
         },
         {
           path: "*",

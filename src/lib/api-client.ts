@@ -18,8 +18,56 @@ export class ApiError extends Error {
 }
 
 let csrfToken: string | undefined;
+let csrfRequest: Promise<string> | undefined;
+
+/** Sets (or forgets, with undefined) the CSRF token; sign-in and sign-out start a new session, so forget it then. */
 export function setCsrfToken(token: string | undefined) {
   csrfToken = token;
+}
+
+/** Fetches the session's CSRF token once, however many requests ask at the same time. */
+function fetchCsrfToken(): Promise<string> {
+  csrfRequest ??= fetch("/api/auth/csrf", { headers: { Accept: "application/json" }, credentials: "same-origin" })
+    .then(async (res) => {
+      const body = (await res.json().catch(() => undefined)) as { token?: unknown } | undefined;
+      if (!res.ok || typeof body?.token !== "string") throw new ApiError(res.status, "csrf_unavailable", "Could not start a secure session. Reload the page.");
+      csrfToken = body.token;
+      return body.token;
+    })
+    .finally(() => {
+      csrfRequest = undefined;
+    });
+  return csrfRequest;
+}
+
+type SessionListener = (expiresAt: number) => void;
+const sessionListeners = new Set<SessionListener>();
+let lastSessionExpiry: number | undefined;
+
+/**
+ * Calls `listener` with the client-clock time (ms) at which the signed-in session ends, read
+ * from the `X-Session-Expires-In` header of every signed-in answer (at once with the latest
+ * known value). Returns the unsubscribe function.
+ */
+export function onSessionExpiry(listener: SessionListener): () => void {
+  sessionListeners.add(listener);
+  if (lastSessionExpiry !== undefined) listener(lastSessionExpiry);
+  return () => sessionListeners.delete(listener);
+}
+
+type UnauthorizedListener = (url: string) => void;
+const unauthorizedListeners = new Set<UnauthorizedListener>();
+
+/** Forgets the CSRF token and the session's end: call after sign-in and sign-out (each starts a new session). */
+export function resetSessionState() {
+  csrfToken = undefined;
+  lastSessionExpiry = undefined;
+}
+
+/** Calls `listener` when any request answers 401 (the session ended); returns the unsubscribe function. */
+export function onUnauthorized(listener: UnauthorizedListener): () => void {
+  unauthorizedListeners.add(listener);
+  return () => unauthorizedListeners.delete(listener);
 }
 
 export interface RequestOptions<T extends z.ZodType> {
@@ -30,14 +78,13 @@ export interface RequestOptions<T extends z.ZodType> {
   signal?: AbortSignal;
 }
 
-export async function api<T extends z.ZodType>(url: string, options: RequestOptions<T> = {}): Promise<z.output<T>> {
-  const method = options.method ?? "GET";
+async function send(url: string, method: string, options: RequestOptions<z.ZodType>): Promise<Response> {
   const headers: Record<string, string> = { Accept: "application/json", ...options.headers };
   if (options.body !== undefined) headers["Content-Type"] = "application/json";
-  if (method !== "GET" && csrfToken) headers["x-csrf-token"] = csrfToken;
-  let res: Response;
+  // The public calculators keep no session, so they need no token.
+  if (method !== "GET" && !url.startsWith("/api/calc/")) headers["x-csrf-token"] = csrfToken ?? (await fetchCsrfToken());
   try {
-    res = await fetch(url, {
+    return await fetch(url, {
       method,
       headers,
       body: options.body === undefined ? undefined : JSON.stringify(options.body),
@@ -48,8 +95,26 @@ export async function api<T extends z.ZodType>(url: string, options: RequestOpti
     if ((err as Error).name === "AbortError") throw err;
     throw new ApiError(0, "network", "Could not reach Hearthloop. Check your connection and try again.");
   }
-  const text = await res.text();
-  const json: unknown = text ? safeJson(text) : undefined;
+}
+
+export async function api<T extends z.ZodType>(url: string, options: RequestOptions<T> = {}): Promise<z.output<T>> {
+  const method = options.method ?? "GET";
+  let res = await send(url, method, options);
+  let text = await res.text();
+  let json: unknown = text ? safeJson(text) : undefined;
+  if (res.status === 403 && (json as { error?: { code?: string } } | undefined)?.error?.code === "csrf_invalid") {
+    // The session changed under us (expired, or signed in elsewhere): get its token and try once more.
+    csrfToken = undefined;
+    res = await send(url, method, options);
+    text = await res.text();
+    json = text ? safeJson(text) : undefined;
+  }
+  const expiresIn = res.headers.get("x-session-expires-in");
+  if (expiresIn !== null && Number.isFinite(Number(expiresIn))) {
+    lastSessionExpiry = Date.now() + Number(expiresIn) * 1000;
+    for (const listener of sessionListeners) listener(lastSessionExpiry);
+  }
+  if (res.status === 401) for (const listener of unauthorizedListeners) listener(url);
   if (!res.ok) {
     const parsed = ApiErrorSchema.safeParse(json);
     if (parsed.success) {

@@ -2,7 +2,7 @@ import { Router } from "express";
 import { z } from "zod";
 import { handle } from "../../middleware/handle";
 import { requireAuth } from "../../middleware/require-auth";
-import { handleWithSession } from "../../middleware/session";
+import { handleWithSession, sessionHeaders } from "../../middleware/session";
 import { logSecurityEvent } from "../../lib/security-log";
 import {
   LoginRequestSchema,
@@ -31,7 +31,7 @@ export function authRouter() {
       const caller = await session.authenticate();
       if (!caller) throw service.invalidCredentials();
       await session.signIn(caller);
-      return { body: caller };
+      return { body: caller, headers: sessionHeaders(session.info()) };
     }),
   );
 

@@ -1,7 +1,7 @@
 import { Router } from "express";
 import { handle } from "../../middleware/handle";
 import { requireRole } from "../../middleware/require-role";
-import { handleWithSession } from "../../middleware/session";
+import { handleWithSession, sessionHeaders } from "../../middleware/session";
 import { AcceptInvitationSchema, TokenParamsSchema } from "../../../shared/schemas/auth";
 import {
   DigesterIdParamsSchema,
@@ -56,7 +56,7 @@ export function peopleRouter() {
     handleWithSession({ params: TokenParamsSchema, body: AcceptInvitationSchema }, async ({ params, body, requestId, ip, session }) => {
       const caller = await service.acceptInvitation(params.token, body, { requestId, ip });
       await session.signIn(caller);
-      return { body: caller };
+      return { body: caller, headers: sessionHeaders(session.info()) };
     }),
   );
 

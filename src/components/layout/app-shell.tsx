@@ -1,5 +1,5 @@
 import { NavLink, Outlet, ScrollRestoration } from "react-router-dom";
-import { Suspense } from "react";
+import { Suspense, type ReactNode } from "react";
 import { cn } from "@/lib/cn";
 import { paths } from "@/config/paths";
 import { Spinner } from "@/components/ui";
@@ -17,8 +17,19 @@ function navClass({ isActive }: { isActive: boolean }) {
   );
 }
 
+export type NavItem = { to: string; label: string; end?: boolean };
+
+export type AppShellProps = {
+  /** Links for the signed-in person's roles, after the public ones. */
+  extraNavItems?: NavItem[];
+  /** Right end of the header: who is signed in, sign in / sign out. */
+  accountArea?: ReactNode;
+  /** Page-wide overlays such as the session-expiry dialog. */
+  children?: ReactNode;
+};
+
 /** Skip link, header with navigation, the page, and a footer. */
-export function AppShell() {
+export function AppShell({ extraNavItems = [], accountArea, children }: AppShellProps = {}) {
   return (
     <div className="flex min-h-dvh flex-col">
       <a
@@ -35,7 +46,7 @@ export function AppShell() {
           </NavLink>
           <nav aria-label="Main">
             <ul className="flex flex-wrap gap-1">
-              {navItems.map((item) => (
+              {[...navItems, ...extraNavItems].map((item) => (
                 <li key={item.to}>
                   <NavLink to={item.to} end={item.end} className={navClass}>
                     {item.label}
@@ -44,6 +55,7 @@ export function AppShell() {
               ))}
             </ul>
           </nav>
+          {accountArea}
         </div>
       </header>
       <main id="main" tabIndex={-1} className="mx-auto w-full max-w-6xl flex-1 px-4 py-6 focus:outline-none">
@@ -56,6 +68,7 @@ export function AppShell() {
           Hearthloop gives estimates. Local gas, building and waste rules and licensed practitioners decide.
         </div>
       </footer>
+      {children}
       <ScrollRestoration />
     </div>
   );

@@ -1,0 +1,6 @@
+export const authKeys = {
+  all: ["auth"] as const,
+  me: () => [...authKeys.all, "me"] as const,
+  invitation: (token: string) => [...authKeys.all, "invitation", token] as const,
+  resetLink: (token: string) => [...authKeys.all, "reset-link", token] as const,
+};

@@ -9,6 +9,10 @@ import { calcRouter } from "./modules/calc/calc.routes";
 import { householdsRouter } from "./modules/households/households.routes";
 import { dropOffsRouter } from "./modules/drop-offs/drop-offs.routes";
 import { streetsRouter } from "./modules/streets/streets.routes";
+import { stewardRouter } from "./modules/steward/steward.routes";
+import { feedingsRouter } from "./modules/feedings/feedings.routes";
+import { readingsRouter } from "./modules/readings/readings.routes";
+import { digesterProfileRouter } from "./modules/digesters/digester-profile.routes";
 
 /** Every API router, mounted under /api. */
 export function apiRouter() {
@@ -24,5 +28,9 @@ export function apiRouter() {
   router.use(householdsRouter());
   router.use(dropOffsRouter());
   router.use(streetsRouter());
+  router.use(stewardRouter());
+  router.use(feedingsRouter());
+  router.use(readingsRouter());
+  router.use(digesterProfileRouter());
   return router;
 }

@@ -37,6 +37,7 @@ import {
   type TestPerson,
 } from "../helpers/db";
 import { listApiRoutes, parseRoute } from "../helpers/routes";
+import { addDays, localDate } from "../../server/lib/clock";
 
 const ROLES = ["anonymous", "resident", "steward", "coordinator", "gardener"] as const;
 type Who = (typeof ROLES)[number];
@@ -80,6 +81,21 @@ const row = (route: string, expectation: Expectation, options: Omit<Row, "route"
 
 /** A well-formed one-time token that matches nothing. */
 const unknownToken = () => "Z".repeat(20) + Math.random().toString(36).slice(2, 12).padEnd(23, "x");
+
+/**
+ * A fresh drop-off of the table's household at the table's digester: pending for today, or
+ * accepted yesterday (today's ledger row is capped by the accept rows, so an accepted row written
+ * straight into today would be refused by the database, as it should).
+ */
+async function accessDropOff(ctx: AccessContext, status: "pending" | "accepted"): Promise<number> {
+  const today = localDate(new Date());
+  const [d] = await sql<{ id: number }>(
+    `INSERT INTO drop_offs (household_id, digester_id, for_date, weight_kg, mass_source, fresh_kg, kg_vs, status)
+     VALUES ($1, $2, $3, 1, 'weighed', 1, 0.2262, $4) RETURNING id`,
+    [ctx.ownHouseholdId, ctx.ownDigesterId, status === "pending" ? today : addDays(today, -1), status],
+  );
+  return d!.id;
+}
 
 const table: Row[] = [
   // ── foundation ──
@@ -158,6 +174,54 @@ const table: Row[] = [
       );
       return { path: `/api/drop-offs/${d!.id}/cancel` };
     },
+  }),
+
+  // ── the steward's day, readings and the digester page (issue 5, steward side) ──
+  // Stewards act on the digesters they look after (ownDigesterId), coordinators on all; the table's
+  // digester has no temperature, so budget-spending rows carry an override with a reason.
+  row("GET /api/steward/today", only(["steward", "coordinator"], 200)),
+  row("POST /api/drop-offs/:id/accept", only(["steward", "coordinator"], 200), {
+    request: async (ctx) => ({ path: `/api/drop-offs/${await accessDropOff(ctx, "pending")}/accept`, body: { override: { reason: "access table" } } }),
+  }),
+  row("POST /api/drop-offs/:id/feed", only(["steward", "coordinator"], 200), {
+    request: async (ctx) => ({ path: `/api/drop-offs/${await accessDropOff(ctx, "accepted")}/feed`, body: { override: { reason: "access table" } } }),
+  }),
+  row("POST /api/drop-offs/:id/turn-away", only(["steward", "coordinator"], 200), {
+    request: async (ctx) => ({ path: `/api/drop-offs/${await accessDropOff(ctx, "pending")}/turn-away`, body: { reason: "contamination" } }),
+  }),
+  row("POST /api/digesters/:id/feedings", only(["steward", "coordinator"], 201), {
+    request: (ctx) => ({ path: `/api/digesters/${ctx.ownDigesterId}/feedings`, body: { freshKg: 1, override: { reason: "access table" } } }),
+  }),
+  row("GET /api/digesters/:id/feedings", only(["steward", "coordinator"], 200), {
+    request: (ctx) => ({ path: `/api/digesters/${ctx.ownDigesterId}/feedings` }),
+  }),
+  row("GET /api/digesters/:id/feedings.csv", only(["steward", "coordinator"], 200), {
+    request: (ctx) => ({ path: `/api/digesters/${ctx.ownDigesterId}/feedings.csv` }),
+  }),
+  row("POST /api/digesters/:id/readings", only(["steward", "coordinator"], 201), {
+    request: (ctx) => ({ path: `/api/digesters/${ctx.ownDigesterId}/readings`, body: { takenAt: new Date().toISOString(), temperatureC: 31 } }),
+  }),
+  // Readings are the digester's working record: its stewards and coordinators read them, residents and gardeners do not.
+  row("GET /api/digesters/:id/readings", only(["steward", "coordinator"], 200), {
+    request: (ctx) => ({ path: `/api/digesters/${ctx.ownDigesterId}/readings` }),
+  }),
+  row("GET /api/digesters/:id/readings.csv", only(["steward", "coordinator"], 200), {
+    request: (ctx) => ({ path: `/api/digesters/${ctx.ownDigesterId}/readings.csv` }),
+  }),
+  // Uploads are for the digester's own stewards only (QUALITY.md: steward-only). This table cannot attach a
+  // file, so the steward's request reaches the handler and gets 400 "attach a file" (tests/server/readings-import.test.ts uploads).
+  row("POST /api/digesters/:id/readings/import", { ...only(["steward"], 400) }, {
+    request: (ctx) => ({ path: `/api/digesters/${ctx.ownDigesterId}/readings/import` }),
+  }),
+  row("GET /api/digesters/:id", only(["steward", "coordinator"], 200), { request: (ctx) => ({ path: `/api/digesters/${ctx.ownDigesterId}` }) }),
+  row("PATCH /api/digesters/:id", only(["steward", "coordinator"], 200), {
+    request: (ctx) => ({ path: `/api/digesters/${ctx.ownDigesterId}`, body: { siteDescription: "Behind the access-table shed" } }),
+  }),
+  row("PUT /api/digesters/:id/status", only(["steward", "coordinator"], 200), {
+    request: (ctx) => ({ path: `/api/digesters/${ctx.ownDigesterId}/status`, body: { status: "active" } }),
+  }),
+  row("GET /api/digesters/:id/history", only(["steward", "coordinator"], 200), {
+    request: (ctx) => ({ path: `/api/digesters/${ctx.ownDigesterId}/history?days=14` }),
   }),
 
   // ── public calculators (stateless; an empty body is a 400 for anyone) ──

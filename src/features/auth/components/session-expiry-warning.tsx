@@ -1,4 +1,4 @@
-import { useEffect, useState } from "react";
+import { useEffect, useRef, useState } from "react";
 import { Button, Dialog } from "@/components/ui";
 import { onSessionExpiry } from "@/lib/api-client";
 import { useStaySignedIn } from "../api/stay-signed-in";
@@ -24,6 +24,7 @@ export function SessionExpiryWarning({ onExpired, onSignOut }: { onExpired: () =
   const [now, setNow] = useState(() => Date.now());
   const [dismissedFor, setDismissedFor] = useState<number | null>(null);
   const stay = useStaySignedIn();
+  const stayButton = useRef<HTMLButtonElement>(null);
 
   useEffect(() => onSessionExpiry(setExpiresAt), []);
 
@@ -45,6 +46,12 @@ export function SessionExpiryWarning({ onExpired, onSignOut }: { onExpired: () =
   // After "stay signed in" the end did not move far: the 8-hour limit is what ends this session.
   const cannotExtend = stay.isSuccess && stay.data.expiresInSeconds * 1000 <= WARNING_BEFORE_MS;
 
+  // The dialog focuses its first control (the close button); the action people want is staying.
+  // This parent effect runs after the dialog's own, so it has the last word.
+  useEffect(() => {
+    if (open) stayButton.current?.focus();
+  }, [open]);
+
   return (
     <Dialog
       open={open}
@@ -61,7 +68,7 @@ export function SessionExpiryWarning({ onExpired, onSignOut }: { onExpired: () =
             Sign out now
           </Button>
           {cannotExtend ? null : (
-            <Button type="button" loading={stay.isPending} onClick={() => stay.mutate()} autoFocus>
+            <Button ref={stayButton} type="button" loading={stay.isPending} onClick={() => stay.mutate()}>
               Stay signed in
             </Button>
           )}

@@ -4,7 +4,7 @@ import { sequelize } from "../../server/db/sequelize";
 import { addDays } from "../../server/lib/clock";
 import { loadDigestersToday } from "../../server/modules/digesters/digester-state.service";
 import { reserveToday, withLedgerGuard } from "../../server/modules/feedings/feed-capacity";
-import { createPerson, clientFor, signedInClient, sql } from "../helpers/db";
+import { createPerson, clientFor, signedInClient, sql, type ApiClient } from "../helpers/db";
 import { committedFromRows, createDropOff, ledgerDay, today, warmDigester } from "../helpers/steward-fixtures";
 
 const app = createApp({ requestLogging: false });
@@ -368,10 +368,10 @@ describe("capacity under concurrency", () => {
     expect(state!.budget.budgetBuckets).toBeGreaterThanOrEqual(10);
     expect(state!.budget.budgetBuckets).toBeLessThan(11);
 
-    const drops = [];
+    const drops: { id: number; kgVs: number }[] = [];
     for (let i = 0; i < 50; i += 1)
       drops.push(await createDropOff({ householdId: household.id, digesterId: digester.id }));
-    const stewards = [];
+    const stewards: ApiClient[] = [];
     for (let i = 0; i < 5; i += 1) {
       const person = await createPerson({ roles: ["steward"], stewardOf: [digester.id] });
       stewards.push(await clientFor(app, person));
@@ -401,7 +401,7 @@ describe("capacity under concurrency", () => {
 
   it("when a commitment races past the application's check on a stale budget, then the ledger's constraint refuses it with the same 409", async () => {
     const { digester, household } = await warmDigester({ previousDailyKgVs: TEN_BUCKET_HISTORY_KG_VS });
-    const drops = [];
+    const drops: { id: number; kgVs: number }[] = [];
     for (let i = 0; i < 11; i += 1)
       drops.push(await createDropOff({ householdId: household.id, digesterId: digester.id }));
     // A view of the budget taken before anything was accepted: it says all 10.6 buckets are free.

@@ -86,6 +86,8 @@ export const StewardDropOffSchema = z.object({
   fitsToday: z.boolean(),
   /** Citrus share above the 10 % limit (DOMAIN.md §1). */
   citrusOverLimit: z.boolean(),
+  /** Dilution water suggested when feeding it, litres (its mix's TS down to the digester's target, DOMAIN.md §2 limit 7). */
+  suggestedWaterLitres: z.number(),
 });
 export type StewardDropOff = z.infer<typeof StewardDropOffSchema>;
 
@@ -117,8 +119,10 @@ export const StewardBudgetSchema = DigesterTodaySchema.extend({
   /** kg VS and kg of scraps already fed or accepted today. */
   committedKgVs: z.number(),
   committedKgScraps: z.number(),
-  /** Suggested dilution water, litres per kg of scraps (DOMAIN.md §2 limit 7). */
+  /** Suggested dilution water, litres per kg of mixed scraps (DOMAIN.md §2 limit 7). */
   dilutionWaterLitresPerKg: z.number(),
+  /** The digester's target slurry solids, % (for water suggestions of other mixes). */
+  targetTsPercent: z.number(),
   /** Each limit on today's total load, kg VS/day (null when not applied). */
   limits: z.object({
     organicLoad: z.number().nullable(),

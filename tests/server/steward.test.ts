@@ -70,6 +70,9 @@ describe("the steward's today view", () => {
     expect(day.waiting.map((w: { id: number }) => w.id)).toEqual([waitingYesterday.id, waitingToday.id]);
     expect(day.waiting.map((w: { id: number }) => w.id)).not.toContain(tomorrow.id);
     expect(day.accepted.map((a: { id: number }) => a.id)).toEqual([accepted.id]);
+    // Dilution water w = 26/8 − 1 = 2.25 L/kg (DOMAIN.md §2 limit 7 [derived]) × 5 kg = 11.25 → 11.3 L.
+    expect(day.waiting[1].suggestedWaterLitres).toBe(11.3);
+    expect(day.budget.targetTsPercent).toBe(8);
     expect(day.waiting[1]).toMatchObject({
       householdName: expect.any(String),
       bucketCount: 1,

@@ -3,6 +3,7 @@ import { CITRUS_MAX_SHARE, DEFAULT_BUCKET_LITRES, freshKgFromKgVs } from "../../
 import type { LatestReadings, LatestValue, StewardBudget, StewardDropOff } from "../../../shared/schemas/steward";
 import { READING_MAX_AGE_HOURS } from "../../../shared/schemas/steward";
 import type { DigesterToday } from "../digesters/digester-state.service";
+import { suggestedWaterLitres } from "../feedings/feed-capacity";
 import { toSummary } from "../digesters/digesters.service";
 import type { LatestReadingRow } from "../readings/readings.repository";
 import type { DropOffRow } from "./steward.repository";
@@ -19,6 +20,7 @@ export function stewardBudget(state: DigesterToday): StewardBudget {
     committedKgVs: round(state.committedTodayKgVs, 3),
     committedKgScraps: round(freshKgFromKgVs(state.committedTodayKgVs), 1),
     dilutionWaterLitresPerKg: round(b.dilutionWaterLitresPerKg, 3),
+    targetTsPercent: state.digester.targetTsPercent,
     limits: {
       organicLoad: roundOrNull(limits.organicLoad, 3),
       hydraulic: roundOrNull(limits.hydraulic, 3),
@@ -67,5 +69,8 @@ export function stewardDropOff(row: DropOffRow, state: DigesterToday | undefined
     createdAt: new Date(row.createdAt).toISOString(),
     fitsToday: alreadyCounted || (state !== undefined && !state.closed && row.kgVs <= room + 1e-6),
     citrusOverLimit: row.citrusPercent > CITRUS_MAX_SHARE * 100,
+    suggestedWaterLitres: state
+      ? suggestedWaterLitres(row.freshKg, row.mix, row.citrusPercent, state.digester.targetTsPercent)
+      : 0,
   };
 }

@@ -8,6 +8,7 @@ import { securityLogger } from "../../server/lib/security-log";
 import { ABSOLUTE_TIMEOUT_MS, IDLE_TIMEOUT_MS, sessionCookieSettings } from "../../server/middleware/session";
 import { deliverDueEmails } from "../../server/modules/outbox/outbox.service";
 import { SIGN_IN_MAX_FAILURES } from "../../server/modules/auth/sign-in-throttle";
+import { pruneExpired } from "../../server/modules/auth/housekeeping.service";
 import {
   anonymousClient,
   clientFor,
@@ -62,6 +63,8 @@ describe("POST /api/auth/login", () => {
       householdId: null,
     });
     expect(JSON.stringify(res.body)).not.toMatch(/argon2|password/i);
+    // The client starts its session-expiry clock from this header.
+    expect(Number(res.headers["x-session-expires-in"])).toBeGreaterThan(1790);
     const cookie = String(res.headers["set-cookie"]);
     expect(cookie).toMatch(/^hearthloop\.sid=/);
     expect(cookie).not.toContain("connect.sid");
@@ -479,6 +482,24 @@ describe("password reset", () => {
     const client = await anonymousClient(app);
     for (let i = 0; i < 5; i++) expect((await client.post("/api/auth/password-reset").send({ email: person.email })).status).toBe(202);
     expect(await sql(`SELECT 1 FROM outbox_emails WHERE to_address = $1`, [person.email])).toHaveLength(3);
+  });
+});
+
+describe("housekeeping", () => {
+  it("when sessions and throttle counters have run out, then the hourly job deletes them and keeps live ones", async () => {
+    const person = await createPerson();
+    const agent = request.agent(app);
+    const live = sessionIdFromCookies((await login(agent, person.email, TEST_PASSWORD)).headers["set-cookie"]);
+    const deadSid = `dead-${uniqueEmail("sid")}`;
+    await sql(`INSERT INTO sessions (sid, sess, expire) VALUES ($1, '{}', now() - interval '1 minute') RETURNING sid`, [deadSid]);
+    const deadKey = `test:${uniqueEmail("key")}`;
+    await sql(`INSERT INTO rate_limit_hits (key, hits, reset_at) VALUES ($1, 3, now() - interval '1 minute') RETURNING key`, [deadKey]);
+    const result = await pruneExpired();
+    expect(result.skipped).toBe(false);
+    expect(result.sessions).toBeGreaterThanOrEqual(1);
+    expect(await sessionRow(deadSid)).toHaveLength(0);
+    expect(await sessionRow(live)).toHaveLength(1);
+    expect(await sql(`SELECT 1 FROM rate_limit_hits WHERE key = $1`, [deadKey])).toHaveLength(0);
   });
 });
 

@@ -121,7 +121,8 @@ export function PeopleTable({ people, digesterNames, onEdit }: PeopleTableProps)
     setRole(r);
     setStatus(st);
     table.setGlobalFilter(s);
-    table.getColumn("roles")?.setFilterValue(r || undefined);
+    // arrIncludes keeps rows holding any of the listed values, so it takes a list.
+    table.getColumn("roles")?.setFilterValue(r ? [r] : undefined);
     table.getColumn("status")?.setFilterValue(st || undefined);
     table.setPageIndex(0);
   };

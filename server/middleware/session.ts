@@ -22,6 +22,12 @@ import { handle, type Caller, type HandlerInput, type Reply } from "./handle";
 
 export const IDLE_TIMEOUT_MS = 30 * 60_000;
 export const ABSOLUTE_TIMEOUT_MS = 8 * 60 * 60_000;
+/**
+ * A session row's expiry is moved at most once a minute per process (not on every request), to
+ * save one UPDATE per request. The server-side idle end is then between 29 and 30 minutes after
+ * the last request, so the client is told the shorter figure.
+ */
+export const TOUCH_INTERVAL_MS = 60_000;
 /** Response header on signed-in API answers: seconds until the session ends if nothing else happens. */
 export const SESSION_EXPIRES_HEADER = "X-Session-Expires-In";
 
@@ -30,6 +36,8 @@ declare module "express-session" {
     /** Epoch ms of sign-in, for the absolute timeout. */
     signedInAt?: number;
     passport?: { user?: number };
+    /** Set by "stay signed in" to force a write of the row (a plain touch may be skipped). */
+    keptAliveAt?: number;
   }
 }
 
@@ -55,7 +63,28 @@ export function sessionMiddleware(): RequestHandler {
   const e = env();
   const { name, cookie } = sessionCookieSettings(e);
   const PgStore = connectPgSimple(session);
-  const store = new PgStore({
+  // Skips a touch when this process moved the same row's expiry less than TOUCH_INTERVAL_MS ago.
+  class MinuteTouchStore extends PgStore {
+    private readonly lastTouch = new Map<string, number>();
+    override touch(sid: string, sess: session.SessionData, callback?: () => void) {
+      const now = Date.now();
+      const last = this.lastTouch.get(sid);
+      if (last !== undefined && now - last < TOUCH_INTERVAL_MS) return callback?.();
+      // Bounded memory: forgetting only costs one extra UPDATE per session.
+      if (this.lastTouch.size >= 50_000) this.lastTouch.clear();
+      this.lastTouch.set(sid, now);
+      super.touch(sid, sess, callback);
+    }
+    override set(sid: string, sess: session.SessionData, callback?: (err?: unknown) => void) {
+      this.lastTouch.set(sid, Date.now());
+      super.set(sid, sess, callback);
+    }
+    override destroy(sid: string, callback?: (err?: unknown) => void) {
+      this.lastTouch.delete(sid);
+      super.destroy(sid, callback);
+    }
+  }
+  const store = new MinuteTouchStore({
     pgPromise: sequelizeAdapter,
     tableName: "sessions",
     createTableIfMissing: false,
@@ -81,12 +110,12 @@ export function passportMiddleware(): RequestHandler[] {
 
 function info(signedInAt: number, now = Date.now()): SessionInfo {
   const absoluteEnd = signedInAt + ABSOLUTE_TIMEOUT_MS;
-  const end = Math.min(now + IDLE_TIMEOUT_MS, absoluteEnd);
+  const end = Math.min(now + IDLE_TIMEOUT_MS - TOUCH_INTERVAL_MS, absoluteEnd);
   return {
     expiresAt: new Date(end).toISOString(),
     expiresInSeconds: Math.max(0, Math.floor((end - now) / 1000)),
     absoluteExpiresAt: new Date(absoluteEnd).toISOString(),
-    idleTimeoutSeconds: IDLE_TIMEOUT_MS / 1000,
+    idleTimeoutSeconds: (IDLE_TIMEOUT_MS - TOUCH_INTERVAL_MS) / 1000,
   };
 }
 
@@ -134,6 +163,8 @@ export interface SessionControl {
   id(): string | undefined;
   /** The CSRF token of this session (created on first use). */
   csrfToken(): string;
+  /** Writes the session row now, moving its idle end ("stay signed in"). */
+  keepAlive(): void;
 }
 
 function control(req: Request, res: Response, next: NextFunction): SessionControl {
@@ -167,6 +198,9 @@ function control(req: Request, res: Response, next: NextFunction): SessionContro
     info: () => (req.user && req.session?.signedInAt ? info(req.session.signedInAt) : undefined),
     id: () => (req.session ? req.sessionID : undefined),
     csrfToken: () => csrfTokenFor(req),
+    keepAlive: () => {
+      if (req.session) req.session.keptAliveAt = Date.now();
+    },
   };
 }
 

@@ -205,8 +205,8 @@ describe("session expiry", () => {
     await page.keyboard.press("Enter");
     expect((await stay).status()).toBe(200);
     await dialog.waitFor({ state: "hidden" });
-    // Nearly 30 more minutes now: another 27 pass without a warning.
-    await page.clock.fastForward("27:00");
+    // About 29 more minutes now: another 26 pass without a warning.
+    await page.clock.fastForward("26:00");
     await page.waitForTimeout(300);
     expect(await dialog.isVisible()).toBe(false);
     expect(await status(page, "/api/auth/me")).toBe(200);

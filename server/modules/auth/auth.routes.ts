@@ -60,7 +60,10 @@ export function authRouter() {
   router.post(
     "/auth/session",
     requireAuth,
-    handleWithSession({ body: NoBody }, ({ session }) => ({ body: session.info() })),
+    handleWithSession({ body: NoBody }, ({ session }) => {
+      session.keepAlive();
+      return { body: session.info() };
+    }),
   );
 
   router.post(

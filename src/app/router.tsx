@@ -57,6 +57,19 @@ export function createRouter() {
           lazy: async () => (await import("./routes/people")).createRoute(queryClient),
         },
         {
+          path: paths.household(),
+          lazy: async () => (await import("./routes/household")).createRoute(queryClient),
+        },
+        {
+          path: paths.logDropOff(),
+          lazy: async () => (await import("./routes/log-drop-off")).createRoute(queryClient),
+        },
+        {
+          path: paths.dropOffs(),
+          // The drop-off table and its stats load in their own chunk.
+          lazy: async () => (await import("./routes/drop-off-history")).createRoute(queryClient),
+        },
+        {
           path: "*",
           lazy: async () => (await import("./routes/not-found")).route,
         },

@@ -11,4 +11,10 @@ export const paths = {
   invitation: (token: string) => `/invitation/${token}`,
   account: () => "/account",
   people: () => "/people",
+  /** The resident's household: registration first, then its details and members. */
+  household: () => "/household",
+  /** Log a drop-off, optionally with a digester chosen (from the map). */
+  logDropOff: (digesterId?: number) => (digesterId ? `/drop-offs/new?digester=${digesterId}` : "/drop-offs/new"),
+  /** The household's drop-offs and what they became. */
+  dropOffs: () => "/drop-offs",
 } as const;

@@ -1,13 +1,20 @@
 import L from "leaflet";
 
-export type MarkerTone = "ok" | "warning" | "resting" | "offline" | "household";
+/**
+ * ok: taking scraps with room today; full: taking scraps but no room left today; warning: a
+ * stop or caution warning (acid risk, cold, no reading); resting, offline: takes no scraps;
+ * home: the viewer's own household (label shown); household: someone else's (symbol only).
+ */
+export type MarkerTone = "ok" | "full" | "warning" | "resting" | "offline" | "household" | "home";
 
 const symbols: Record<MarkerTone, string> = {
   ok: "●",
+  full: "○",
   warning: "!",
   resting: "‖",
   offline: "×",
   household: "⌂",
+  home: "⌂",
 };
 
 function escapeHtml(text: string) {

@@ -332,7 +332,7 @@ describe("assignment: properties on random instances", () => {
       }),
       { numRuns: 60 },
     );
-  });
+  }, 60_000);
 
   it("reaches the exhaustive optimum of the model and is proven optimal", () => {
     fc.assert(
@@ -345,7 +345,7 @@ describe("assignment: properties on random instances", () => {
       }),
       { numRuns: 60 },
     );
-  });
+  }, 60_000);
 
   it("is never worse than the nearest-with-room baseline, and when both place everything walks no further", () => {
     fc.assert(
@@ -365,7 +365,7 @@ describe("assignment: properties on random instances", () => {
       ),
       { numRuns: 60 },
     );
-  });
+  }, 60_000);
 
   it("gives a Lagrangian bound no higher than the optimum for any multipliers", () => {
     fc.assert(
@@ -381,5 +381,5 @@ describe("assignment: properties on random instances", () => {
       ),
       { numRuns: 100 },
     );
-  });
+  }, 60_000);
 });

@@ -1,0 +1,258 @@
+import { describe, it, expect } from "vitest";
+import fc from "fast-check";
+import {
+  type CollectionPlan,
+  type CollectionRoundsInput,
+  EXACT_ROUNDS_MAX_STOPS,
+  collectionRoundsLowerBoundM,
+  exactCollectionRounds,
+  planCollectionRounds,
+} from "../../shared/domain/rounds";
+import { destinationPoint, haversineM } from "../../shared/domain/geo";
+
+// Points on one meridian: distances along it are exactly the metres given.
+const origin = { lat: 52.09, lng: 5.12 };
+const onLine = (m: number) => destinationPoint(origin, m >= 0 ? 0 : 180, Math.abs(m));
+const at = (northM: number, eastM: number) => destinationPoint(destinationPoint(origin, 0, northM), 90, eastM);
+
+const lineStops = (loadKg: number) =>
+  [100, 200, 300].map((m, i) => ({ householdId: `s${i + 1}`, ...onLine(m), loadKg }));
+
+/** Invariants every plan must satisfy, recomputed from the input. */
+function checkPlan(input: CollectionRoundsInput, plan: CollectionPlan) {
+  const bike = new Map(input.volunteers.map((v) => [v.id, v.bikeLoadKg]));
+  const room = new Map(input.digesters.map((d) => [d.id, d.roomKg]));
+  const delivered = new Map<string, number>();
+  const seen = new Map<string, number>();
+  for (const r of plan.rounds) {
+    expect(r.stops.length).toBeGreaterThan(0);
+    const load = r.stops.reduce((s, x) => s + x.loadKg, 0);
+    expect(r.loadKg).toBeCloseTo(load, 9);
+    expect(load).toBeLessThanOrEqual(bike.get(r.volunteerId)! + 1e-9);
+    delivered.set(r.endDigesterId, (delivered.get(r.endDigesterId) ?? 0) + load);
+    expect(r.lengthM).toBeCloseTo(r.stops.reduce((s, x) => s + x.legM, 0) + r.endLegM, 6);
+    const v = input.volunteers.find((x) => x.id === r.volunteerId)!;
+    expect(r.stops[0]!.legM).toBeCloseTo(haversineM(v, r.stops[0]!), 6);
+    for (const s of r.stops) seen.set(s.householdId, (seen.get(s.householdId) ?? 0) + 1);
+  }
+  for (const [d, kg] of delivered) expect(kg).toBeLessThanOrEqual(room.get(d)! + 1e-9);
+  for (const u of plan.unplacedStops) seen.set(u.householdId, (seen.get(u.householdId) ?? 0) + 1);
+  for (const s of input.stops) expect(seen.get(s.householdId)).toBe(1);
+  expect(plan.totalLengthM).toBeCloseTo(
+    plan.rounds.reduce((s, r) => s + r.lengthM, 0),
+    6,
+  );
+}
+
+describe("collection rounds: hand-solved instances", () => {
+  it("when three stops lie on the way to the digester and fit one bike, then one round visits them in order (400 m)", () => {
+    // Volunteer at 0 m, stops at 100/200/300 m, digester at 400 m: the straight run is 400 m [derived].
+    const input: CollectionRoundsInput = {
+      stops: lineStops(2),
+      volunteers: [{ id: "v", ...onLine(0), bikeLoadKg: 10 }],
+      digesters: [{ id: "D", ...onLine(400), roomKg: 100 }],
+    };
+    const plan = planCollectionRounds(input);
+    expect(plan.rounds).toHaveLength(1);
+    expect(plan.rounds[0]!.stops.map((s) => s.householdId)).toEqual(["s1", "s2", "s3"]);
+    expect(plan.totalLengthM).toBeCloseTo(400, 3);
+    expect(exactCollectionRounds(input)!.totalLengthM).toBeCloseTo(400, 3);
+    checkPlan(input, plan);
+  });
+
+  it("when the load is more than one bike, then two rounds of 400 m each are needed (800 m)", () => {
+    // 3 × 2 kg on a 4 kg bike: two rounds; every round along the line from 0 to 400 m is 400 m long [derived].
+    const input: CollectionRoundsInput = {
+      stops: lineStops(2),
+      volunteers: [{ id: "v", ...onLine(0), bikeLoadKg: 4 }],
+      digesters: [{ id: "D", ...onLine(400), roomKg: 100 }],
+    };
+    const plan = planCollectionRounds(input);
+    expect(plan.rounds).toHaveLength(2);
+    expect(plan.totalLengthM).toBeCloseTo(800, 3);
+    checkPlan(input, plan);
+  });
+
+  it("when the near digester has room for only part of the load, then the rest ends at the far one", () => {
+    // Volunteer at 0; stops at 100/200/300 m, 2 kg each; bike 10 kg. "near" at 400 m takes 4 kg, "far" at 1400 m 100 kg.
+    // The 6 kg cannot all end at near, so some round ends at far and costs ≥ 1400 m; one round 0→…→300→far is
+    // exactly 1400 m, so it is optimal; any split adds a second round of ≥ 400 m [derived].
+    const input: CollectionRoundsInput = {
+      stops: lineStops(2),
+      volunteers: [{ id: "v", ...onLine(0), bikeLoadKg: 10 }],
+      digesters: [
+        { id: "near", ...onLine(400), roomKg: 4 },
+        { id: "far", ...onLine(1400), roomKg: 100 },
+      ],
+    };
+    const plan = planCollectionRounds(input);
+    expect(plan.totalLengthM).toBeCloseTo(1400, 3);
+    expect(plan.rounds.map((r) => r.endDigesterId)).toEqual(["far"]);
+    checkPlan(input, plan);
+  });
+
+  it("when stops cannot be collected, then each is reported with its reason", () => {
+    const input: CollectionRoundsInput = {
+      stops: [
+        { householdId: "ok", ...onLine(100), loadKg: 3 },
+        { householdId: "heavy", ...onLine(150), loadKg: 30 },
+        { householdId: "nowhere", lat: null, lng: null, loadKg: 2 },
+        { householdId: "broken", ...onLine(120), loadKg: Number.NaN },
+      ],
+      volunteers: [{ id: "v", ...onLine(0), bikeLoadKg: 20 }],
+      digesters: [{ id: "D", ...onLine(400), roomKg: 100 }],
+    };
+    const plan = planCollectionRounds(input);
+    const reasons = Object.fromEntries(plan.unplacedStops.map((u) => [u.householdId, u.reason]));
+    expect(reasons).toEqual({ heavy: "heavierThanAnyBike", nowhere: "noLocation", broken: "invalidLoad" });
+    expect(plan.unplacedStops.find((u) => u.householdId === "heavy")!.message).toMatch(/20 kg/);
+    expect(plan.rounds.flatMap((r) => r.stops.map((s) => s.householdId))).toEqual(["ok"]);
+    checkPlan(input, plan);
+  });
+
+  it("when the digesters' room runs out across rounds, then the rest is reported 'no digester with room' and rooms hold", () => {
+    // One 4 kg bike, four 4 kg stops, one digester with 8 kg room: two one-stop rounds fit, two stops do not.
+    const input: CollectionRoundsInput = {
+      stops: [100, 200, 300, 350].map((m, i) => ({ householdId: `s${i}`, ...onLine(m), loadKg: 4 })),
+      volunteers: [{ id: "v", ...onLine(0), bikeLoadKg: 4 }],
+      digesters: [{ id: "D", ...onLine(400), roomKg: 8 }],
+    };
+    const plan = planCollectionRounds(input);
+    expect(plan.rounds).toHaveLength(2);
+    expect(plan.unplacedStops.map((u) => u.reason)).toEqual(["noDigesterWithRoom", "noDigesterWithRoom"]);
+    expect(plan.digesterLoads).toEqual([{ digesterId: "D", loadKg: 8, roomKg: 8 }]);
+    checkPlan(input, plan);
+  });
+
+  it("when nobody has a bike, then every stop is reported and a message says so", () => {
+    const input: CollectionRoundsInput = {
+      stops: lineStops(2),
+      volunteers: [],
+      digesters: [{ id: "D", ...onLine(400), roomKg: 100 }],
+    };
+    const plan = planCollectionRounds(input);
+    expect(plan.rounds).toEqual([]);
+    expect(plan.unplacedStops.every((u) => u.reason === "noVolunteer")).toBe(true);
+    expect(plan.messages.join(" ")).toMatch(/No volunteer/);
+  });
+
+  it("when a round is too heavy for one volunteer's bike, then it goes to a volunteer whose bike carries it", () => {
+    const input: CollectionRoundsInput = {
+      stops: [{ householdId: "s", ...onLine(100), loadKg: 15 }],
+      volunteers: [
+        { id: "small", ...onLine(90), bikeLoadKg: 10 },
+        { id: "big", ...onLine(-500), bikeLoadKg: 20 },
+      ],
+      digesters: [{ id: "D", ...onLine(400), roomKg: 100 }],
+    };
+    const plan = planCollectionRounds(input);
+    expect(plan.rounds[0]!.volunteerId).toBe("big");
+    // −500 → 100 → 400 m = 900 m [derived]
+    expect(plan.totalLengthM).toBeCloseTo(900, 3);
+  });
+});
+
+/* ------------------------------------------------------------------ */
+/* Random instances                                                    */
+/* ------------------------------------------------------------------ */
+
+const instance = (maxStops: number) =>
+  fc
+    .record({
+      sideM: fc.integer({ min: 500, max: 4000 }),
+      stops: fc.array(
+        fc.record({
+          n: fc.double({ min: 0, max: 1, noNaN: true }),
+          e: fc.double({ min: 0, max: 1, noNaN: true }),
+          kg: fc.integer({ min: 1, max: 10 }),
+        }),
+        {
+          minLength: 1,
+          maxLength: maxStops,
+        },
+      ),
+      volunteers: fc.array(
+        fc.record({
+          n: fc.double({ min: 0, max: 1, noNaN: true }),
+          e: fc.double({ min: 0, max: 1, noNaN: true }),
+          bike: fc.integer({ min: 8, max: 30 }),
+        }),
+        {
+          minLength: 1,
+          maxLength: 3,
+        },
+      ),
+      digesters: fc.array(
+        fc.record({
+          n: fc.double({ min: 0, max: 1, noNaN: true }),
+          e: fc.double({ min: 0, max: 1, noNaN: true }),
+          share: fc.double({ min: 0.2, max: 1.5, noNaN: true }),
+        }),
+        {
+          minLength: 1,
+          maxLength: 3,
+        },
+      ),
+    })
+    .map(({ sideM, stops, volunteers, digesters }): CollectionRoundsInput => {
+      const total = stops.reduce((s, x) => s + x.kg, 0);
+      return {
+        stops: stops.map((s, i) => ({ householdId: `s${i}`, ...at(s.n * sideM, s.e * sideM), loadKg: s.kg })),
+        volunteers: volunteers.map((v, k) => ({ id: `v${k}`, ...at(v.n * sideM, v.e * sideM), bikeLoadKg: v.bike })),
+        digesters: digesters.map((d, k) => ({
+          id: `d${k}`,
+          ...at(d.n * sideM, d.e * sideM),
+          roomKg: Math.round(total * d.share),
+        })),
+      };
+    });
+
+describe("collection rounds: properties", () => {
+  it("every round fits its bike, no digester gets more than its room, every stop is planned once or reported", () => {
+    fc.assert(
+      fc.property(instance(25), (input) => {
+        checkPlan(input, planCollectionRounds(input, { improvementIterations: 20 }));
+      }),
+      { numRuns: 40 },
+    );
+  }, 60_000);
+
+  // Quality is a statistical claim, so these comparisons use a fixed seed (reproducible runs).
+  // Measured on 40 random cases per size with 1–9 stops (see the report): equal to the optimum for ≤ 5 stops,
+  // worst 2.7 % above it for 6–9 stops. The contract tested here is looser: ≤ 10 %, and equal up to 4 stops.
+  it("is within 10 % of the exact optimum up to 9 stops, never better than it, and never above it in its lower bound", () => {
+    fc.assert(
+      fc.property(instance(EXACT_ROUNDS_MAX_STOPS), (input) => {
+        const exact = exactCollectionRounds(input);
+        fc.pre(exact !== null && exact.unplacedStops.length === 0);
+        const plan = planCollectionRounds(input);
+        checkPlan(input, exact!);
+        expect(plan.unplacedStops).toEqual([]);
+        expect(plan.totalLengthM).toBeGreaterThanOrEqual(exact!.totalLengthM - 1e-6);
+        expect(plan.totalLengthM).toBeLessThanOrEqual(exact!.totalLengthM * 1.1);
+        expect(collectionRoundsLowerBoundM(input)).toBeLessThanOrEqual(exact!.totalLengthM + 1e-6);
+      }),
+      { numRuns: 60, seed: 20240601 },
+    );
+  }, 180_000);
+
+  it("equals the exact optimum on tiny cases (up to 4 stops)", () => {
+    fc.assert(
+      fc.property(instance(4), (input) => {
+        const exact = exactCollectionRounds(input);
+        fc.pre(exact !== null && exact.unplacedStops.length === 0);
+        expect(planCollectionRounds(input).totalLengthM).toBeCloseTo(exact!.totalLengthM, 6);
+      }),
+      { numRuns: 80, seed: 20240602 },
+    );
+  }, 60_000);
+
+  it("when there are more than 9 stops, then the exact solver declines instead of running for ever", () => {
+    const input: CollectionRoundsInput = {
+      stops: Array.from({ length: 10 }, (_, i) => ({ householdId: `s${i}`, ...onLine(100 * i), loadKg: 1 })),
+      volunteers: [{ id: "v", ...onLine(0), bikeLoadKg: 20 }],
+      digesters: [{ id: "D", ...onLine(1200), roomKg: 100 }],
+    };
+    expect(exactCollectionRounds(input)).toBeNull();
+  });
+});

@@ -24,13 +24,15 @@ export function RootLayout() {
   const signOut = useSignOut();
   const here = location.pathname + location.search;
 
+  const endSession = signOut.mutate;
   const sessionEnded = useCallback(() => {
     if (!queryClient.getQueryData(authKeys.me())) return;
+    // Sign out on the server too: the client's clock ends a little early, and a shared computer
+    // must not keep a live session behind the sign-in page.
     resetSessionState();
-    queryClient.clear();
     queryClient.setQueryData(authKeys.me(), null);
-    navigate(paths.signIn(here), { state: { expired: true } });
-  }, [queryClient, navigate, here]);
+    endSession(undefined, { onSettled: () => navigate(paths.signIn(here), { state: { expired: true } }) });
+  }, [queryClient, navigate, here, endSession]);
 
   useEffect(
     () =>

@@ -212,4 +212,18 @@ describe("session expiry", () => {
     expect(await status(page, "/api/auth/me")).toBe(200);
     await page.close();
   });
+
+  it("when nobody answers the warning, then at the end the person is signed out on the server too and sign-in will bring them back", async () => {
+    const page = await freshPage();
+    await page.clock.install();
+    await page.goto(h.baseUrl + "/sign-in?next=%2Faccount");
+    await signInWithKeyboard(page, DEMO_SIGN_IN_EMAILS.resident, DEMO_PASSWORD);
+    await page.getByRole("heading", { level: 1, name: "Your account" }).waitFor();
+    await page.clock.fastForward("29:30");
+    await page.getByText("Your session ended").waitFor();
+    expect(new URL(page.url()).pathname + new URL(page.url()).search).toBe("/sign-in?next=%2Faccount");
+    expect(await status(page, "/api/auth/me")).toBe(401);
+    expect(await axeViolations(page)).toEqual([]);
+    await page.close();
+  });
 });

@@ -31,7 +31,8 @@ export function serverFieldErrors(error: unknown, shown: readonly string[]): Fie
   if (!(error instanceof ApiError)) return { form: "Something went wrong. Please try again." };
   const fields: FieldErrors = {};
   for (const [name, message] of Object.entries(error.fields)) if (shown.includes(name)) fields[name] = message;
-  if (Object.keys(fields).length === 0) fields.form = error.message;
+  // A refusal other than bad input (a resting digester, 409) says what to do instead: keep its message too.
+  if (Object.keys(fields).length === 0 || error.status !== 400) fields.form = error.message;
   return fields;
 }
 

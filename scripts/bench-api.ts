@@ -83,7 +83,7 @@ const dropOffBody = JSON.stringify({ digesterId: open.id, bucketCount: 1, bucket
 let statements = 0;
 const traceSql = process.env.BENCH_TRACE_SQL === "true";
 let counting = false;
-(sequelize().options as { logging: unknown }).logging = (sql: string) => {
+(sequelize() as unknown as { options: { logging: unknown } }).options.logging = (sql: string) => {
   if (!counting) return;
   statements += 1;
   if (traceSql) console.log(`  sql: ${sql.slice(0, 200)}`);

@@ -31,8 +31,9 @@ export const DigesterTodaySchema = z.object({
   binding: z.enum(FEED_BINDINGS),
   explanation: z.string(),
   warnings: z.array(FeedWarningSchema),
-  /** Drop-offs waiting for a steward today, kg of scraps. */
+  /** Drop-offs waiting for a steward today, kg of scraps and kg VS. */
   pendingKgScraps: z.number(),
+  pendingKgVs: z.number(),
   temperatureC: z.number().nullable(),
 });
 export type DigesterToday = z.infer<typeof DigesterTodaySchema>;

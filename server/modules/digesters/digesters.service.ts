@@ -26,6 +26,7 @@ export function toSummary(state: DigesterToday): DigesterSummary {
       explanation: state.budget.explanation,
       warnings: state.budget.warnings.map((w) => ({ ...w, actions: [...w.actions] })),
       pendingKgScraps: round(state.pendingTodayKgScraps, 1),
+      pendingKgVs: round(state.pendingTodayKgVs, 3),
       temperatureC: state.temperature.temperatureC,
     },
   };

@@ -10,7 +10,7 @@ export function createRouter() {
   return createBrowserRouter([
     {
       element: <RootLayout />,
-      errorElement: <RouteError />,
+      errorElement: <RouteError standalone />,
       // Who is signed in decides the navigation; a failed check just shows the visitor's view.
       loader: async () => {
         await queryClient.ensureQueryData(meQueryOptions()).catch(() => null);

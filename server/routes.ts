@@ -13,6 +13,7 @@ import { stewardRouter } from "./modules/steward/steward.routes";
 import { feedingsRouter } from "./modules/feedings/feedings.routes";
 import { readingsRouter } from "./modules/readings/readings.routes";
 import { digesterProfileRouter } from "./modules/digesters/digester-profile.routes";
+import { assignmentsRouter } from "./modules/assignments/assignments.routes";
 
 /** Every API router, mounted under /api. */
 export function apiRouter() {
@@ -32,5 +33,6 @@ export function apiRouter() {
   router.use(feedingsRouter());
   router.use(readingsRouter());
   router.use(digesterProfileRouter());
+  router.use(assignmentsRouter());
   return router;
 }

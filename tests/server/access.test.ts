@@ -224,6 +224,14 @@ const table: Row[] = [
     request: (ctx) => ({ path: `/api/digesters/${ctx.ownDigesterId}/history?days=14` }),
   }),
 
+  // ── coordinator's board (issue 6) ──
+  row("POST /api/assignments/proposals", only(["coordinator"], 200), { request: () => ({ body: { excludeDigesterIds: [] } }) }),
+  // A version that matches no assignment: the coordinator reaches the check and is told it is stale.
+  row("POST /api/assignments/apply", only(["coordinator"], 409), { request: () => ({ body: { version: "stale", changes: [] } }) }),
+  row("PUT /api/households/:id/pin", only(["coordinator"], 200), {
+    request: (ctx) => ({ path: `/api/households/${ctx.otherHouseholdId}/pin`, body: { pinned: false } }),
+  }),
+
   // ── public calculators (stateless; an empty body is a 400 for anyone) ──
   ...[
     "feed-budget",

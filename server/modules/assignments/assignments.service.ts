@@ -1,0 +1,363 @@
+/**
+ * The coordinator's assignment board: proposals (nothing changes), applying one in a single
+ * transaction guarded by a version, and pins. Households bring their expected weekly kg (last
+ * 8 weeks of fed or accepted drop-offs, or the declared amount with under 2 weeks of history);
+ * digesters offer their weekly room (shared/domain/weekly-room.ts from today's feed budget).
+ */
+import { performance } from "node:perf_hooks";
+import type { Transaction } from "sequelize";
+import {
+  type AssignmentDigester,
+  type AssignmentHousehold,
+  type AssignmentInput,
+  nearestWithRoomBaseline,
+  solveAssignment,
+} from "../../../shared/domain/assignment";
+import { haversineM, isValidLatLng } from "../../../shared/domain/geo";
+import { WEEKLY_ROOM_METHOD, projectWeeklyRoom } from "../../../shared/domain/weekly-room";
+import type {
+  ApplyRequest,
+  ApplyResult,
+  Proposal,
+  ProposalAssignment,
+  ProposalDigester,
+  ProposalRequest,
+  ProposalUnplaced,
+} from "../../../shared/schemas/assignments";
+import { sequelize } from "../../db/sequelize";
+import { AppError, badRequest, conflict, notFound } from "../../lib/app-error";
+import { daysBetween, localDate } from "../../lib/clock";
+import { type DigesterToday, loadDigestersToday } from "../digesters/digester-state.service";
+import { enqueueEmail } from "../outbox/outbox.service";
+import { newDigesterEmail } from "./assignments.emails";
+import { highsSolver } from "./highs-solver";
+import * as repo from "./assignments.repository";
+
+/** Weeks of history below which the declared amount is used. */
+export const MIN_HISTORY_WEEKS = 2;
+const HISTORY_WEEKS = 8;
+const DEFAULT_WHY =
+  "the coordinator re-balanced households across the digesters so that each stays within its safe feed rate for the week while everyone walks as little as possible.";
+
+/** Expected kg a week: recent fed/accepted kg over the weeks since the first of them (2…8), else declared. */
+export function householdWeeklyKg(h: repo.AssignableHousehold, today: string): number {
+  if (h.recentWeeks < MIN_HISTORY_WEEKS || h.firstRecentDay === null) return h.declaredWeeklyKg;
+  const spanWeeks = Math.min(HISTORY_WEEKS, Math.max(MIN_HISTORY_WEEKS, Math.ceil((daysBetween(h.firstRecentDay, today) + 1) / 7)));
+  return h.recentKg / spanWeeks;
+}
+
+/** Weekly room of a digester in fresh kg (0 when closed or excluded). */
+export function digesterWeeklyRoomKg(state: DigesterToday, excluded: boolean): number {
+  return projectWeeklyRoom({
+    limits: state.budget.limits,
+    // The budget applied the week limits only when it had history; project the same way.
+    previous7DaysKgVs: state.budget.limits.weekRamp === null ? null : state.previous7DaysKgVs,
+    fedTodayKgVs: state.committedTodayKgVs,
+    closed: state.closed || excluded,
+  }).weeklyKgScraps;
+}
+
+const round1 = (x: number) => Math.round(x * 10) / 10;
+
+/** A proposal: nothing is written. */
+export async function propose(request: ProposalRequest, now = new Date()): Promise<Proposal> {
+  const today = localDate(now);
+  const [households, states, version, solver] = await Promise.all([
+    repo.assignableHouseholds(today),
+    loadDigestersToday(null, { now }),
+    repo.assignmentVersion(),
+    highsSolver(),
+  ]);
+  const messages: string[] = [];
+  const householdById = new Map(households.map((h) => [h.id, h]));
+  const stateById = new Map(states.map((s) => [s.digester.id, s]));
+  const digesterName = (id: number | string) => stateById.get(Number(id))?.digester.name ?? `digester ${id}`;
+  const householdName = (id: number | string) => householdById.get(Number(id))?.name ?? `household ${id}`;
+
+  const excluded = new Set(request.excludeDigesterIds ?? []);
+  for (const id of excluded) if (!stateById.has(id)) messages.push(`Digester ${id} to exclude does not exist; ignored.`);
+
+  // Pins: those stored, then those in the request (which win). Two request pins for one household contradict.
+  const pins = new Map<number, number>();
+  for (const h of households) if (h.pinned && h.assignedDigesterId !== null) pins.set(h.id, h.assignedDigesterId);
+  const requested = new Map<number, number>();
+  for (const pin of request.pins ?? []) {
+    if (!householdById.has(pin.householdId)) {
+      messages.push(`Pin ignored: household ${pin.householdId} does not exist.`);
+      continue;
+    }
+    const earlier = requested.get(pin.householdId);
+    if (earlier !== undefined && earlier !== pin.digesterId) {
+      messages.push(
+        `Contradictory pins: ${householdName(pin.householdId)} is pinned to both ${digesterName(earlier)} and ${digesterName(pin.digesterId)}; the first pin is kept.`,
+      );
+      continue;
+    }
+    requested.set(pin.householdId, pin.digesterId);
+    pins.set(pin.householdId, pin.digesterId);
+  }
+
+  // Digesters that can take nobody are left out of the model (they only slow HiGHS down), except
+  // those a pin names, so the contradiction is reported; their load is 0 below.
+  const pinnedTo = new Set([...pins.values()].map(String));
+  const modelDigesters = states
+    .map<AssignmentDigester>((s) => ({
+      id: String(s.digester.id),
+      lat: s.digester.lat,
+      lng: s.digester.lng,
+      weeklyRoomKg: digesterWeeklyRoomKg(s, excluded.has(s.digester.id)),
+      available: !s.closed && !excluded.has(s.digester.id),
+    }))
+    .filter((d) => (d.available && d.weeklyRoomKg > 0) || pinnedTo.has(d.id));
+  const weekly = new Map(households.map((h) => [h.id, householdWeeklyKg(h, today)]));
+  const input: AssignmentInput = {
+    households: households.map<AssignmentHousehold>((h) => ({
+      id: String(h.id),
+      lat: h.lat,
+      lng: h.lng,
+      weeklyKg: weekly.get(h.id)!,
+      pinnedDigesterId: pins.has(h.id) ? String(pins.get(h.id)) : null,
+    })),
+    digesters: modelDigesters,
+    maxWalkingDistanceM: request.maxWalkM ?? null,
+  };
+
+  const started = performance.now();
+  const result = solveAssignment(input, solver, { timeLimitS: 10 });
+  const solveMs = performance.now() - started;
+  const baseline = nearestWithRoomBaseline(input);
+
+  for (const c of result.contradictions) {
+    const who = householdName(c.householdId);
+    const where = digesterName(c.digesterId);
+    messages.push(
+      c.kind === "unknownDigester"
+        ? `Contradictory pin: ${who} is pinned to a digester that does not exist (${c.digesterId}); it is placed like any other household.`
+        : c.kind === "digesterUnavailable"
+          ? `Contradictory pin: ${who} is pinned to ${where}, which is resting, offline or excluded; it is placed like any other household.`
+          : `Contradictory pin: the households pinned to ${where} bring more than its weekly room; ${who} is placed like any other household.`,
+    );
+  }
+  for (const m of result.messages) messages.push(m);
+
+  const noLocation = result.unplaced.filter((u) => u.reason === "noLocation");
+  if (noLocation.length > 0) {
+    messages.push(
+      `${noLocation.length} household${noLocation.length === 1 ? " has" : "s have"} no location on the map (${noLocation
+        .slice(0, 5)
+        .map((u) => householdName(u.householdId))
+        .join(", ")}${noLocation.length > 5 ? ", …" : ""}); add one so they can be assigned.`,
+    );
+  }
+  const available = modelDigesters.filter((d) => d.available);
+  const outOfReach = result.unplaced.filter((u) => u.reason === "noDigesterWithinReach");
+  if (outOfReach.length > 0 && request.maxWalkM != null && available.length > 0) {
+    let needed = 0;
+    for (const u of outOfReach) {
+      const h = householdById.get(Number(u.householdId))!;
+      if (!isValidLatLng(h.lat, h.lng)) continue;
+      const nearest = Math.min(...available.map((d) => haversineM({ lat: h.lat!, lng: h.lng! }, d)));
+      needed = Math.max(needed, nearest);
+    }
+    messages.push(
+      `The maximum walk of ${Math.round(request.maxWalkM)} m cannot be met: ${outOfReach.length} household${outOfReach.length === 1 ? " has" : "s have"} no open digester that close. A limit of ${Math.ceil(needed)} m would reach them all.`,
+    );
+  }
+  if (available.length === 0) messages.push("No digester is taking scraps this week (all resting, offline or excluded).");
+  const noRoom = states.filter((s) => !s.closed && !excluded.has(s.digester.id) && digesterWeeklyRoomKg(s, false) <= 0);
+  if (noRoom.length > 0) {
+    messages.push(
+      `${noRoom.length === 1 ? "This digester has" : `${noRoom.length} digesters have`} no room this week (no temperature reading in 3 days, an acid warning or a full week): ${noRoom
+        .slice(0, 5)
+        .map((s) => s.digester.name)
+        .join(", ")}${noRoom.length > 5 ? ", …" : ""}.`,
+    );
+  }
+
+  const assignments: ProposalAssignment[] = result.assignments.map((a) => {
+    const h = householdById.get(Number(a.householdId))!;
+    return {
+      householdId: h.id,
+      householdName: h.name,
+      lat: h.lat!,
+      lng: h.lng!,
+      fromDigesterId: h.assignedDigesterId,
+      toDigesterId: Number(a.digesterId),
+      distanceM: a.distanceM,
+      weeklyKg: a.weeklyKg,
+      pinned: a.pinned,
+      changed: h.assignedDigesterId !== Number(a.digesterId) || h.pinned !== a.pinned,
+    };
+  });
+  const loads = new Map(result.digesterLoads.map((l) => [Number(l.digesterId), l]));
+  const digesters: ProposalDigester[] = states.map((s) => {
+    const l = loads.get(s.digester.id);
+    return {
+      id: s.digester.id,
+      name: s.digester.name,
+      lat: s.digester.lat,
+      lng: s.digester.lng,
+      status: s.digester.status,
+      excluded: excluded.has(s.digester.id),
+      available: !s.closed && !excluded.has(s.digester.id),
+      loadKg: l?.loadKg ?? 0,
+      roomKg: l?.roomKg ?? digesterWeeklyRoomKg(s, excluded.has(s.digester.id)),
+      utilisation: l?.utilisation ?? null,
+      householdCount: l?.householdCount ?? 0,
+    };
+  });
+  const unplaced: ProposalUnplaced[] = result.unplaced.map((u) => {
+    const name = householdName(u.householdId);
+    const suggestion =
+      u.suggestion.kind === "anotherDay"
+        ? `Bring the scraps to ${digesterName(u.suggestion.digesterId)} (${Math.round(u.suggestion.distanceM)} m) on another day, or compost at home.`
+        : "Compost at home until there is room.";
+    const message =
+      u.reason === "noLocation"
+        ? `${name} has no location on the map.`
+        : u.reason === "invalidAmount"
+          ? `${name} has no valid weekly amount.`
+          : u.reason === "noDigesterWithinReach"
+            ? request.maxWalkM != null
+              ? `No open digester within ${Math.round(request.maxWalkM)} m of ${name}.`
+              : `No digester is open for ${name}.`
+            : `Every digester within reach of ${name} is full this week (${round1(u.weeklyKg)} kg to place).`;
+    return { householdId: Number(u.householdId), householdName: name, weeklyKg: u.weeklyKg, reason: u.reason, message, suggestion };
+  });
+  let currentDistanceM = 0;
+  for (const h of households) {
+    const d = h.assignedDigesterId === null ? undefined : stateById.get(h.assignedDigesterId);
+    if (d && isValidLatLng(h.lat, h.lng)) currentDistanceM += haversineM({ lat: h.lat!, lng: h.lng! }, d.digester);
+  }
+  return {
+    version,
+    assignments,
+    digesters,
+    unplaced,
+    messages,
+    totalDistanceM: result.totalDistanceM,
+    baselineDistanceM: baseline.totalDistanceM,
+    currentDistanceM,
+    changedCount: assignments.filter((a) => a.changed).length,
+    method: result.method,
+    solverStatus: result.solverStatus,
+    provenOptimal: result.provenOptimal,
+    gapToLpBound: result.gapToLpBound,
+    solveMs: Math.round(solveMs * 10) / 10,
+    weeklyRoomMethod: WEEKLY_ROOM_METHOD,
+  };
+}
+
+interface Move {
+  householdId: number;
+  fromDigesterId: number | null;
+  toDigesterId: number;
+}
+
+async function notifyMoves(transaction: Transaction, moves: Move[], why: string, now: Date): Promise<number> {
+  if (moves.length === 0) return 0;
+  const [residents, states, households] = await Promise.all([
+    repo.residentsOf(moves.map((m) => m.householdId), transaction),
+    loadDigestersToday(null, { now, transaction }),
+    repo.assignableHouseholds(localDate(now), transaction),
+  ]);
+  const stateById = new Map(states.map((s) => [s.digester.id, s.digester]));
+  const householdById = new Map(households.map((h) => [h.id, h]));
+  let queued = 0;
+  for (const m of moves) {
+    const h = householdById.get(m.householdId);
+    const to = stateById.get(m.toDigesterId);
+    if (!h || !to) continue;
+    const distanceM = isValidLatLng(h.lat, h.lng) ? haversineM({ lat: h.lat!, lng: h.lng! }, to) : null;
+    for (const r of residents.filter((x) => x.householdId === m.householdId)) {
+      await enqueueEmail(
+        transaction,
+        newDigesterEmail({
+          to: r.email,
+          name: r.name,
+          householdName: h.name,
+          digesterName: to.name,
+          siteDescription: to.siteDescription,
+          distanceM,
+          previousDigesterName: m.fromDigesterId === null ? null : (stateById.get(m.fromDigesterId)?.name ?? null),
+          why,
+        }),
+      );
+      queued++;
+    }
+  }
+  return queued;
+}
+
+/**
+ * Applies the coordinator's changes in one transaction. The proposal's version must still be
+ * the current one (checked under an advisory lock that every assignment change takes), else 409
+ * and nothing is written. Each moved household's active residents get an e-mail via the outbox.
+ */
+export async function apply(request: ApplyRequest, now = new Date()): Promise<ApplyResult> {
+  return sequelize().transaction(async (transaction) => {
+    await repo.lockAssignments(transaction);
+    const current = await repo.assignmentVersion(transaction);
+    if (current !== request.version) {
+      throw conflict("The assignment changed since this proposal was made (another coordinator applied one, or a pin changed). Run a new proposal; nothing was changed.");
+    }
+    const households = await repo.assignableHouseholds(localDate(now), transaction);
+    const byId = new Map(households.map((h) => [h.id, h]));
+    const states = await loadDigestersToday(null, { now, transaction });
+    const stateById = new Map(states.map((s) => [s.digester.id, s]));
+    const seen = new Set<number>();
+    const fields: Record<string, string> = {};
+    request.changes.forEach((c, i) => {
+      if (!byId.has(c.householdId)) fields[`changes.${i}.householdId`] = `Household ${c.householdId} does not exist.`;
+      else if (seen.has(c.householdId)) fields[`changes.${i}.householdId`] = `Household ${c.householdId} appears twice.`;
+      seen.add(c.householdId);
+      if (c.digesterId !== null) {
+        const s = stateById.get(c.digesterId);
+        if (!s) fields[`changes.${i}.digesterId`] = `Digester ${c.digesterId} does not exist.`;
+        else if (s.closed) fields[`changes.${i}.digesterId`] = `${s.digester.name} is ${s.digester.status}: it takes no households.`;
+      }
+      if (c.digesterId === null && c.pinned) fields[`changes.${i}.pinned`] = "A household can be pinned only to a digester.";
+    });
+    if (Object.keys(fields).length > 0) throw badRequest("Some changes cannot be applied; nothing was changed.", fields);
+    const moves: Move[] = [];
+    for (const c of request.changes) {
+      const h = byId.get(c.householdId)!;
+      const pinned = c.digesterId === null ? false : (c.pinned ?? h.pinned);
+      await repo.setAssignment(transaction, c.householdId, c.digesterId, pinned);
+      if (c.digesterId !== null && c.digesterId !== h.assignedDigesterId) {
+        moves.push({ householdId: h.id, fromDigesterId: h.assignedDigesterId, toDigesterId: c.digesterId });
+      }
+    }
+    const why = request.reason ? `${request.reason}` : DEFAULT_WHY;
+    const emailsQueued = await notifyMoves(transaction, moves, why, now);
+    return { applied: request.changes.length, emailsQueued, version: await repo.assignmentVersion(transaction) };
+  });
+}
+
+/** Pins or unpins one household (optionally to a new digester); a move e-mails its residents. */
+export async function setPin(
+  householdId: number,
+  input: { pinned: boolean; digesterId?: number | undefined },
+  now = new Date(),
+): Promise<{ householdId: number; assignedDigesterId: number | null; pinned: boolean; version: string }> {
+  return sequelize().transaction(async (transaction) => {
+    await repo.lockAssignments(transaction);
+    const households = await repo.assignableHouseholds(localDate(now), transaction);
+    const h = households.find((x) => x.id === householdId);
+    if (!h) throw notFound("The household");
+    const digesterId = input.digesterId ?? h.assignedDigesterId;
+    if (input.pinned && digesterId === null) {
+      throw badRequest("Choose a digester to pin this household to: it has none yet.", { digesterId: "Choose a digester." });
+    }
+    if (input.digesterId !== undefined) {
+      const [s] = await loadDigestersToday([input.digesterId], { now, transaction });
+      if (!s) throw badRequest(`Digester ${input.digesterId} does not exist.`, { digesterId: "No such digester." });
+      if (s.closed) throw new AppError(409, "digester_closed", `${s.digester.name} is ${s.digester.status}: it takes no households.`);
+    }
+    await repo.setAssignment(transaction, householdId, digesterId, input.pinned);
+    if (digesterId !== null && digesterId !== h.assignedDigesterId) {
+      await notifyMoves(transaction, [{ householdId, fromDigesterId: h.assignedDigesterId, toDigesterId: digesterId }], DEFAULT_WHY, now);
+    }
+    return { householdId, assignedDigesterId: digesterId, pinned: input.pinned, version: await repo.assignmentVersion(transaction) };
+  });
+}

@@ -14,6 +14,7 @@ import { feedingsRouter } from "./modules/feedings/feedings.routes";
 import { readingsRouter } from "./modules/readings/readings.routes";
 import { digesterProfileRouter } from "./modules/digesters/digester-profile.routes";
 import { assignmentsRouter } from "./modules/assignments/assignments.routes";
+import { rebalancingRouter } from "./modules/rebalancing/rebalancing.routes";
 
 /** Every API router, mounted under /api. */
 export function apiRouter() {
@@ -34,5 +35,6 @@ export function apiRouter() {
   router.use(readingsRouter());
   router.use(digesterProfileRouter());
   router.use(assignmentsRouter());
+  router.use(rebalancingRouter());
   return router;
 }

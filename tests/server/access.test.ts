@@ -231,6 +231,11 @@ const table: Row[] = [
   row("PUT /api/households/:id/pin", only(["coordinator"], 200), {
     request: (ctx) => ({ path: `/api/households/${ctx.otherHouseholdId}/pin`, body: { pinned: false } }),
   }),
+  row("GET /api/rebalancing", only(["coordinator"], 200)),
+  // Drop-off 999999999 does not exist: the coordinator reaches the service and gets 404.
+  row("POST /api/rebalancing/moves", only(["coordinator"], 404), {
+    request: (ctx) => ({ body: { moves: [{ dropOffId: 999999999, digesterId: ctx.otherDigesterId }] } }),
+  }),
 
   // ── public calculators (stateless; an empty body is a 400 for anyone) ──
   ...[

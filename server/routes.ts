@@ -15,6 +15,8 @@ import { readingsRouter } from "./modules/readings/readings.routes";
 import { digesterProfileRouter } from "./modules/digesters/digester-profile.routes";
 import { assignmentsRouter } from "./modules/assignments/assignments.routes";
 import { rebalancingRouter } from "./modules/rebalancing/rebalancing.routes";
+import { collectionsRouter } from "./modules/collections/collections.routes";
+import { roundsRouter } from "./modules/rounds/rounds.routes";
 
 /** Every API router, mounted under /api. */
 export function apiRouter() {
@@ -36,5 +38,7 @@ export function apiRouter() {
   router.use(digesterProfileRouter());
   router.use(assignmentsRouter());
   router.use(rebalancingRouter());
+  router.use(collectionsRouter());
+  router.use(roundsRouter());
   return router;
 }

@@ -236,6 +236,25 @@ const table: Row[] = [
   row("POST /api/rebalancing/moves", only(["coordinator"], 404), {
     request: (ctx) => ({ body: { moves: [{ dropOffId: 999999999, digesterId: ctx.otherDigesterId }] } }),
   }),
+  // Collections: a day with no request from anyone here; the table's resident has a household, the steward none (409).
+  row("POST /api/collection-requests", { ...only(["resident"], 201) }, {
+    request: () => ({ body: { forDate: addDays(localDate(new Date()), 30 + Math.floor(Math.random() * 29)), bucketCount: 1 } }),
+  }),
+  row("GET /api/collection-requests", signedIn(200), { request: () => ({ path: "/api/collection-requests?mine=true" }) }),
+  // Request 999999999 does not exist: residents and coordinators reach the service (404).
+  row("POST /api/collection-requests/:id/cancel", { ...only(["resident", "coordinator"], 404) }, {
+    request: () => ({ path: "/api/collection-requests/999999999/cancel", body: {} }),
+  }),
+  row("POST /api/collection-rounds/plan", only(["coordinator"], 200), {
+    request: () => ({ body: { forDate: addDays(localDate(new Date()), 59) } }),
+  }),
+  row("GET /api/collection-rounds", signedIn(200)),
+  // Round 999999999 does not exist: anyone signed in reaches the service (404), whose guard follows the lookup.
+  row("GET /api/collection-rounds/:id", signedIn(404), { request: () => ({ path: "/api/collection-rounds/999999999" }) }),
+  row("GET /api/collection-rounds/:id/geojson", signedIn(404), { request: () => ({ path: "/api/collection-rounds/999999999/geojson" }) }),
+  row("POST /api/collection-rounds/:id/stops/:requestId/collected", signedIn(404), {
+    request: () => ({ path: "/api/collection-rounds/999999999/stops/1/collected", body: {} }),
+  }),
 
   // ── public calculators (stateless; an empty body is a 400 for anyone) ──
   ...[

@@ -15,6 +15,7 @@ const roleNavigation: RoleNavItem[] = [
   { to: paths.logDropOff(), label: "Log a drop-off", for: ["resident"] },
   { to: paths.dropOffs(), label: "Your drop-offs", end: true, for: ["resident"] },
   { to: paths.household(), label: "Household", for: ["resident"] },
+  { to: paths.stewardToday(), label: "Digesters today", for: ["steward", "coordinator"] },
   { to: paths.people(), label: "People", for: ["coordinator"] },
   { to: paths.account(), label: "Your account", for: "signedIn" },
 ];

@@ -70,6 +70,15 @@ export function createRouter() {
           lazy: async () => (await import("./routes/drop-off-history")).createRoute(queryClient),
         },
         {
+          path: paths.stewardToday(),
+          lazy: async () => (await import("./routes/steward-today")).createRoute(queryClient),
+        },
+        {
+          path: paths.digester(":id"),
+          // Charts (recharts) and the records tables load in this route's own chunk.
+          lazy: async () => (await import("./routes/digester")).createRoute(queryClient),
+        },
+        {
           path: "*",
           lazy: async () => (await import("./routes/not-found")).route,
         },

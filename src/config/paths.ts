@@ -17,4 +17,8 @@ export const paths = {
   logDropOff: (digesterId?: number) => (digesterId ? `/drop-offs/new?digester=${digesterId}` : "/drop-offs/new"),
   /** The household's drop-offs and what they became. */
   dropOffs: () => "/drop-offs",
+  /** The steward's day: every digester they look after (coordinators: all). */
+  stewardToday: () => "/steward",
+  /** A digester's page: charts, records, profile and status (":id" gives the route pattern). */
+  digester: (id: number | string) => `/digesters/${id}`,
 } as const;

@@ -20,6 +20,8 @@ export const ProposalRequestSchema = z
       .optional(),
     excludeDigesterIds: z.array(id).max(500, "At most 500 digesters.").optional(),
     pins: z.array(PinInputSchema).max(10_000, "Too many pins.").optional(),
+    /** Households whose stored pin this proposal ignores (applying it then unpins them). */
+    unpins: z.array(id).max(10_000, "Too many households.").optional(),
   })
   .strict();
 export type ProposalRequest = z.infer<typeof ProposalRequestSchema>;

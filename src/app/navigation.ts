@@ -16,6 +16,8 @@ const roleNavigation: RoleNavItem[] = [
   { to: paths.dropOffs(), label: "Your drop-offs", end: true, for: ["resident"] },
   { to: paths.household(), label: "Household", for: ["resident"] },
   { to: paths.stewardToday(), label: "Digesters today", for: ["steward", "coordinator"] },
+  { to: paths.coordinator(), label: "Assignments", for: ["coordinator"] },
+  { to: paths.collectionRounds(), label: "Collection rounds", for: ["coordinator", "resident"] },
   { to: paths.people(), label: "People", for: ["coordinator"] },
   { to: paths.account(), label: "Your account", for: "signedIn" },
 ];

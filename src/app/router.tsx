@@ -79,6 +79,19 @@ export function createRouter() {
           lazy: async () => (await import("./routes/digester")).createRoute(queryClient),
         },
         {
+          path: paths.coordinator(),
+          // The assignment board, its map and table load in their own chunk.
+          lazy: async () => (await import("./routes/coordinator")).createRoute(queryClient),
+        },
+        {
+          path: paths.collectionRounds(),
+          lazy: async () => (await import("./routes/collection-rounds")).createRoute(queryClient),
+        },
+        {
+          path: paths.roundSheet(":id"),
+          lazy: async () => (await import("./routes/round-sheet")).createRoute(queryClient),
+        },
+        {
           path: "*",
           lazy: async () => (await import("./routes/not-found")).route,
         },

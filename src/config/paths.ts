@@ -21,4 +21,10 @@ export const paths = {
   stewardToday: () => "/steward",
   /** A digester's page: charts, records, profile and status (":id" gives the route pattern). */
   digester: (id: number | string) => `/digesters/${id}`,
+  /** The coordinator's board: assignment proposals and today's rebalancing. */
+  coordinator: () => "/coordinator",
+  /** Collection rounds: coordinators plan a date; volunteers see their own. */
+  collectionRounds: (date?: string) => (date ? `/rounds?date=${date}` : "/rounds"),
+  /** One round's sheet, printable (":id" gives the route pattern). */
+  roundSheet: (id: number | string) => `/rounds/${id}`,
 } as const;

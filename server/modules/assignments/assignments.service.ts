@@ -79,7 +79,8 @@ export async function propose(request: ProposalRequest, now = new Date()): Promi
 
   // Pins: those stored, then those in the request (which win). Two request pins for one household contradict.
   const pins = new Map<number, number>();
-  for (const h of households) if (h.pinned && h.assignedDigesterId !== null) pins.set(h.id, h.assignedDigesterId);
+  const unpins = new Set(request.unpins ?? []);
+  for (const h of households) if (h.pinned && h.assignedDigesterId !== null && !unpins.has(h.id)) pins.set(h.id, h.assignedDigesterId);
   const requested = new Map<number, number>();
   for (const pin of request.pins ?? []) {
     if (!householdById.has(pin.householdId)) {

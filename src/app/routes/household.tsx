@@ -11,6 +11,7 @@ import { streetsQueryOptions } from "@/features/households/api/get-streets";
 import { DigesterCard } from "@/features/households/components/digester-card";
 import { HouseholdForm } from "@/features/households/components/household-form";
 import { MembersCard } from "@/features/households/components/members-card";
+import { AskForCollection } from "@/features/collections/components/ask-for-collection";
 
 function HouseholdPage() {
   const { data } = useSuspenseQuery(myHouseholdQueryOptions());
@@ -69,6 +70,7 @@ function HouseholdPage() {
           <DigesterCard household={household} />
           <MembersCard household={household} />
         </div>
+        <AskForCollection />
         <Card>
           <CardHeader>
             <CardTitle>Name, address and place</CardTitle>

@@ -5,7 +5,11 @@
  */
 import { z } from "zod";
 
-const id = z.number({ error: "Must be a whole number id." }).int("Must be a whole number id.").positive("Must be a whole number id.");
+const id = z
+  .number({ error: "Must be a whole number id." })
+  .int("Must be a whole number id.")
+  .positive("Must be a whole number id.")
+  .max(2_147_483_647, "Must be a whole number id.");
 
 export const PinInputSchema = z.object({ householdId: id, digesterId: id }).strict();
 
@@ -43,7 +47,7 @@ export type ApplyRequest = z.infer<typeof ApplyRequestSchema>;
 
 /** `PUT /api/households/:id/pin`. */
 export const PinRequestSchema = z.object({ pinned: z.boolean({ error: "Say pinned true or false." }), digesterId: id.optional() }).strict();
-export const HouseholdIdParamsSchema = z.object({ id: z.coerce.number().int().positive() }).strict();
+export const HouseholdIdParamsSchema = z.object({ id: z.coerce.number({ error: "must be a number" }).int().positive().max(2_147_483_647) }).strict();
 
 export interface ProposalAssignment {
   householdId: number;

@@ -30,8 +30,10 @@ export const CollectionRequestsQuerySchema = z
   .object({ mine: z.enum(["true", "false"]).optional(), date: isoDate.optional() })
   .strict();
 
-export const IdParamsSchema = z.object({ id: z.coerce.number().int().positive() }).strict();
-export const StopParamsSchema = z.object({ id: z.coerce.number().int().positive(), requestId: z.coerce.number().int().positive() }).strict();
+/** A row id from the path: a PostgreSQL integer (larger would be a 500 from the database). */
+const pathId = z.coerce.number({ error: "must be a number" }).int().positive().max(2_147_483_647);
+export const IdParamsSchema = z.object({ id: pathId }).strict();
+export const StopParamsSchema = z.object({ id: pathId, requestId: pathId }).strict();
 
 export const PlanRoundsSchema = z.object({ forDate: isoDate }).strict();
 export const RoundsQuerySchema = z.object({ date: isoDate.optional() }).strict();

@@ -27,6 +27,11 @@
  * How it is solved (both paths end with an answer that is feasible by
  * construction and checked in code):
  * 1. LP relaxation with HiGHS → fractional x and capacity duals y_d ≤ 0.
+ *    Large networks first run subgradient steps on the Lagrangian bound
+ *    over all pairs (cheap, in JS) and keep, per household, the k options
+ *    of smallest reduced cost (default 5) plus any priced back in by the
+ *    LP duals — the LP optimum lives on small reduced costs, which k
+ *    nearest digesters alone miss when nearby digesters are full.
  * 2. Lagrangian bound with v_d = max(0, −y_d): for ANY v ≥ 0,
  *      LB(v) = Σ_h min(P_h, min_d (c_hd + w_h v_d)) − Σ_d v_d R_d
  *    is a valid lower bound on every feasible plan (relax the capacity
@@ -34,13 +39,18 @@
  *    the candidate pruning. With optimal LP duals it equals the LP bound.
  * 3. Round each household to its largest x, repair overloads by regret,
  *    improve by relocate and swap moves, and keep the better of this and
- *    the nearest-with-room baseline (so the answer is never worse than it).
+ *    the nearest-with-room baseline (so the answer is never worse than it);
+ *    then "polish": HiGHS solves a small MIP over the options of smallest
+ *    reduced cost (a heuristic, a few seconds at most).
  * 4. Exact path only: reduced-cost fixing — a pair whose reduced cost
- *    c_hd + w_h v_d − min_h(…) exceeds UB − LB cannot appear in any plan
- *    better than the incumbent, so it is removed; households left with one
- *    option are fixed; HiGHS then solves the much smaller MIP to a zero gap
- *    (costs are whole decimetres, so an absolute gap below 0.1 m is proof).
- *
+ *    c_hd + w_h v_d − L_h exceeds UB − LB cannot appear in any plan better
+ *    than the incumbent (c·x ≥ LB + Σ reduced costs of the pairs used), so
+ *    it is removed; households left with one option are fixed; the rest
+ *    splits into independent parts (households linked by shared digesters)
+ *    and HiGHS solves each part's MIP to a zero gap, with the incumbent as
+ *    cutoff (costs are whole decimetres, so an absolute gap below 0.1 m is
+ *    proof). If a time limit stops it, the best plan is returned with its
+ *    gap to the bound and `provenOptimal: false`.
  * Distances are rounded to whole decimetres inside the model; reported
  * distances are the unrounded haversine metres.
  */
@@ -84,6 +94,8 @@ export interface HighsOptionsLike {
   readonly mip_abs_gap?: number;
   readonly presolve?: "off" | "choose" | "on";
   readonly solver?: "choose" | "simplex" | "ipm";
+  /** For a MIP, HiGHS's upper limit on the objective: only better plans are searched for. */
+  readonly objective_bound?: number;
 }
 
 /**
@@ -134,11 +146,11 @@ export interface AssignmentOptions {
   readonly exactMaxHouseholds?: number;
   /** Above this many model variables, "auto" relaxes and rounds. Default 100 000. */
   readonly exactMaxVariables?: number;
-  /** Relax-and-round: candidate digesters kept per household before pricing. Default 8. */
+  /** Relax-and-round: candidate digesters kept per household (smallest Lagrangian reduced cost) before pricing. Default 5. */
   readonly candidatesPerHousehold?: number;
   /** Relax-and-round: LP re-solves allowed to add priced-out pairs. Default 1. */
   readonly pricingRounds?: number;
-  /** HiGHS time limit per solve, seconds. Default 20. */
+  /** HiGHS time limit per solve, seconds. Default 10; a MIP stopped by it returns the best plan found, not proven. */
   readonly timeLimitS?: number;
   /** LP algorithm passed to HiGHS for the relaxation. Default "choose". */
   readonly lpAlgorithm?: "choose" | "simplex" | "ipm";
@@ -389,8 +401,10 @@ export function lagrangianBound(model: AssignmentModel, v: Float64Array): { boun
   let sum = 0;
   model.items.forEach((item, i) => {
     let best = item.penaltyDm;
-    for (let p = 0; p < item.digesters.length; p++) {
-      const c = item.costsDm[p]! + item.kg * (v[item.digesters[p]!] ?? 0);
+    const { digesters, costsDm, kg: w } = item;
+    // Options are sorted by cost and w·v ≥ 0, so nothing beyond the first cost ≥ best can win.
+    for (let p = 0; p < digesters.length && costsDm[p]! < best; p++) {
+      const c = costsDm[p]! + w * (v[digesters[p]!] ?? 0);
       if (c < best) best = c;
     }
     itemMin[i] = best;
@@ -544,30 +558,32 @@ function prepare(input: AssignmentInput): Prepared {
   const itemHousehold: number[] = [];
   let maxCostDm = 0;
   let pairCount = 0;
-  const dist = new Float64Array(usableIdx.length);
-  const order: number[] = [];
+  // Sort keys pack (cost in dm) · 2^20 + position, so a plain numeric typed-array sort orders by cost, then index.
+  const KEY = 1 << 20;
+  const keys = new Float64Array(usableIdx.length);
   for (const i of free) {
     const h = households[i]!;
     const p = { lat: h.lat!, lng: h.lng! };
-    order.length = 0;
+    let count = 0;
     for (let k = 0; k < usableIdx.length; k++) {
       const m = haversineM(p, digesters[usableIdx[k]!]!);
-      dist[k] = m;
-      if (!hasLimit || m <= maxM!) order.push(k);
+      if (!hasLimit || m <= maxM!) keys[count++] = roundDm(m) * KEY + k;
     }
-    if (order.length === 0) {
+    if (count === 0) {
       preUnplaced.push({ household: i, reason: "noDigesterWithinReach" });
       continue;
     }
-    order.sort((a, b) => dist[a]! - dist[b]! || usableIdx[a]! - usableIdx[b]!);
-    const ds = new Int32Array(order.length);
-    const cs = new Float64Array(order.length);
-    order.forEach((k, n) => {
+    const sorted = keys.subarray(0, count).sort();
+    const ds = new Int32Array(count);
+    const cs = new Float64Array(count);
+    for (let n = 0; n < count; n++) {
+      const key = sorted[n]!;
+      const k = key % KEY;
       ds[n] = usableIdx[k]!;
-      cs[n] = roundDm(dist[k]!);
-    });
-    maxCostDm = Math.max(maxCostDm, cs[cs.length - 1]!);
-    pairCount += order.length;
+      cs[n] = (key - k) / KEY;
+    }
+    maxCostDm = Math.max(maxCostDm, cs[count - 1]!);
+    pairCount += count;
     items.push({ kg: h.weeklyKg, digesters: ds, costsDm: cs });
     itemHousehold.push(i);
   }
@@ -884,7 +900,7 @@ function relax(
       let li = item.penaltyDm;
       for (const p of pos) li = Math.min(li, item.costsDm[p]! + item.kg * v[item.digesters[p]!]!);
       const inSet = new Set(pos);
-      for (let p = 0; p < item.digesters.length; p++) {
+      for (let p = 0; p < item.digesters.length && item.costsDm[p]! < li - 1e-6; p++) {
         if (inSet.has(p)) continue;
         if (item.costsDm[p]! + item.kg * v[item.digesters[p]!]! < li - 1e-6) {
           pos.push(p);
@@ -919,41 +935,42 @@ function heuristicPlan(model: AssignmentModel, start: Int32Array | null): Plan {
   return greedy;
 }
 
-/** Subgradient steps on the Lagrangian bound (fixed count, so results are reproducible). */
-const SUBGRADIENT_STEPS = 60;
+/** Subgradient steps on the Lagrangian bound (a fixed count, so results are reproducible). */
+const SUBGRADIENT_STEPS = 120;
 
 /**
  * Improves capacity multipliers v by projected subgradient ascent on
  * LB(v) (see {@link lagrangianBound}): g_d = R_d − Σ_{i choosing d} w_i,
- * v ← max(0, v − t·g) with Polyak's step t = λ (UB − LB)/‖g‖², λ halved
- * after 5 steps without progress [Held, Wolfe & Crowder 1974, Math.
- * Programming 6:62, memory]. Returns the best v seen. Used when the LP
- * was solved over pruned pairs, whose duals under-price the pruned ones.
+ * v ← max(0, v − t·g) with Polyak's step t = λ (UB − LB)/‖g‖², λ from 2,
+ * halved after 8 steps without a better bound [Held, Wolfe & Crowder 1974,
+ * Math. Programming 6:62, memory]. Returns the best v seen and its bound;
+ * the bound is valid whatever v is, so this only ever tightens it.
  */
 export function improveMultipliers(
   model: AssignmentModel,
   start: Float64Array,
   upperBoundDm: number,
   steps = SUBGRADIENT_STEPS,
-): Float64Array {
+): { multipliers: Float64Array; boundDm: number } {
   let v = Float64Array.from(start);
   let best = Float64Array.from(v);
-  let bestLb = lagrangianBound(model, v).boundDm;
-  let lambda = 1;
+  let bestLb = -Infinity;
+  let lambda = 2;
   let stall = 0;
   const g = new Float64Array(v.length);
-  for (let it = 0; it < steps; it++) {
+  for (let it = 0; it <= steps; it++) {
     g.fill(0);
     model.roomKg.forEach((r, d) => {
       g[d] = Math.max(0, r);
     });
     let lb = 0;
-    model.items.forEach((item) => {
+    for (const item of model.items) {
       let bestCost = item.penaltyDm;
       let bestD = -1;
-      for (let p = 0; p < item.digesters.length; p++) {
-        const d = item.digesters[p]!;
-        const c = item.costsDm[p]! + item.kg * v[d]!;
+      const { digesters, costsDm, kg: w } = item;
+      for (let p = 0; p < digesters.length && costsDm[p]! < bestCost; p++) {
+        const d = digesters[p]!;
+        const c = costsDm[p]! + w * v[d]!;
         if (c < bestCost) {
           bestCost = c;
           bestD = d;
@@ -961,7 +978,7 @@ export function improveMultipliers(
       }
       lb += bestCost;
       if (bestD >= 0) g[bestD] = g[bestD]! - item.kg;
-    });
+    }
     model.roomKg.forEach((r, d) => {
       lb -= v[d]! * Math.max(0, r);
     });
@@ -969,27 +986,49 @@ export function improveMultipliers(
       bestLb = lb;
       best = Float64Array.from(v);
       stall = 0;
-    } else if (++stall >= 5) {
+    } else if (++stall >= 8) {
       lambda /= 2;
       stall = 0;
     }
+    if (it === steps) break;
     let norm = 0;
     g.forEach((x, d) => {
       // Projection: a multiplier at 0 with spare room cannot go lower.
       if (!(v[d]! <= 0 && x > 0)) norm += x * x;
     });
-    if (norm <= 1e-12 || upperBoundDm - lb <= 1e-9) break;
+    if (norm <= 1e-12 || upperBoundDm - lb <= 1e-9 || lambda < 1e-4) break;
     const t = (lambda * (upperBoundDm - lb)) / norm;
     v = v.map((x, d) => Math.max(0, x - t * g[d]!));
   }
-  return best;
+  return { multipliers: best, boundDm: bestLb };
+}
+
+/** Per item, the positions of its `k` options with the smallest reduced cost c + w·v (ties to the nearer). */
+function candidatesByReducedCost(model: AssignmentModel, v: Float64Array, k: number): number[][] {
+  return model.items.map((item) => {
+    const m = item.digesters.length;
+    if (m <= k) return [...Array(m).keys()];
+    // Keep the k best seen; options are sorted by cost and w·v ≥ 0, so scanning stops once a cost alone exceeds the k-th best.
+    const best: { p: number; rc: number }[] = [];
+    for (let p = 0; p < m; p++) {
+      const c = item.costsDm[p]!;
+      if (best.length === k && c >= best[k - 1]!.rc) break;
+      const rc = c + item.kg * v[item.digesters[p]!]!;
+      if (best.length < k || rc < best[k - 1]!.rc) {
+        best.push({ p, rc });
+        best.sort((a, b) => a.rc - b.rc || a.p - b.p);
+        if (best.length > k) best.pop();
+      }
+    }
+    return best.map((b) => b.p).sort((a, b) => a - b);
+  });
 }
 
 function solveCore(prep: Prepared, solver: LpSolver, options: AssignmentOptions): SolveOutcome {
   const model = prep.model;
   const n = model.items.length;
   const notes: string[] = [];
-  const timeLimit = options.timeLimitS ?? 20;
+  const timeLimit = options.timeLimitS ?? 10;
   const variables = prep.pairCount + n;
   const wantExact =
     options.mode === "exact" ||
@@ -1003,163 +1042,328 @@ function solveCore(prep: Prepared, solver: LpSolver, options: AssignmentOptions)
   };
 
   let subset: number[][] | undefined;
-  const k = Math.max(1, Math.floor(options.candidatesPerHousehold ?? 8));
-  if (!wantExact) subset = model.items.map((it) => [...Array(Math.min(k, it.digesters.length)).keys()]);
+  const k = Math.max(1, Math.floor(options.candidatesPerHousehold ?? 5));
+  let preBound: { multipliers: Float64Array; boundDm: number } | null = null;
+  if (!wantExact) {
+    // Large networks: multipliers from subgradient steps over all pairs (cheap, in JS) choose each household's
+    // candidates by reduced cost, where the LP optimum lives, instead of by distance alone.
+    const greedyUb = planObjectiveDm(model, greedyNearestWithRoom(model).assign);
+    preBound = improveMultipliers(model, new Float64Array(model.roomKg.length), greedyUb);
+    subset = candidatesByReducedCost(model, preBound.multipliers, k);
+  }
   const relaxed = relax(model, solver, subset, wantExact ? 0 : (options.pricingRounds ?? 1), lpOptions);
   const read = relaxed.read;
   const plan = heuristicPlan(model, read?.hasPoint ? roundPoint(model, read, relaxed.subset) : null);
-  const ub = planObjectiveDm(model, plan.assign);
+  const heuristicUb = planObjectiveDm(model, plan.assign);
   let boundDm: number | null = null;
   let itemMin: Float64Array | null = null;
   let v: Float64Array = new Float64Array(model.roomKg.length);
   if (read?.hasPoint) {
-    // Over pruned pairs the LP duals under-price the rest; subgradient steps recover most of the full LP bound.
-    v = relaxed.subset ? improveMultipliers(model, read.capacityMultipliers, ub) : read.capacityMultipliers;
+    v = read.capacityMultipliers;
+    if (relaxed.subset) {
+      // Over pruned pairs the LP duals may under-price the rest; keep the best valid multipliers found.
+      const polished = improveMultipliers(model, v, heuristicUb, 40);
+      if (polished.boundDm > lagrangianBound(model, v).boundDm) v = polished.multipliers;
+      if (preBound && preBound.boundDm > lagrangianBound(model, v).boundDm) v = preBound.multipliers;
+    }
     const lb = lagrangianBound(model, v);
     boundDm = lb.boundDm;
     itemMin = lb.itemMinDm;
   } else {
+    if (preBound) boundDm = preBound.boundDm;
     notes.push(
-      `HiGHS did not solve the relaxation (${relaxed.status}); the plan below comes from the nearest-with-room rule improved by local moves, with no bound.`,
+      `HiGHS did not solve the relaxation (${relaxed.status}); the plan below comes from the nearest-with-room rule improved by local moves${preBound ? ", with a Lagrangian bound" : ", with no bound"}.`,
     );
   }
   const pruning = wantExact ? null : { candidatesPerHousehold: k, pairsAddedByPricing: relaxed.added };
-  const tol = 1e-6 * Math.max(1, Math.abs(ub));
-  if (!wantExact || boundDm === null || itemMin === null) {
+  const lpVariables = relaxed.variables;
+  if (boundDm === null || itemMin === null) {
     return {
       assign: plan.assign,
-      method: boundDm === null ? "localSearchFallback" : "lpRoundRepair",
+      method: "localSearchFallback",
       status: relaxed.status,
       boundDm,
-      proven: boundDm !== null && ub - boundDm <= tol,
+      proven: false,
       pruning,
-      modelVariables: relaxed.variables,
+      modelVariables: lpVariables,
       notes,
     };
   }
-  if (ub - boundDm <= tol) {
+  const bound = boundDm;
+  const mins = itemMin;
+  const rc: ReducedCosts = {
+    option: (i, p) => {
+      const item = model.items[i]!;
+      return item.costsDm[p]! + item.kg * v[item.digesters[p]!]! - mins[i]!;
+    },
+    unplaced: (i) => model.items[i]!.penaltyDm - mins[i]!,
+    itemMin: mins,
+  };
+  const tolOf = (x: number) => 1e-6 * Math.max(1, Math.abs(x));
+  let assign = plan.assign;
+  let ub = planObjectiveDm(model, assign);
+  let status = relaxed.status;
+  let modelVariables = lpVariables;
+  if (ub - bound <= tolOf(ub)) {
     return {
-      assign: plan.assign,
-      method: "exactMip",
-      status: relaxed.status,
-      boundDm,
+      assign,
+      method: wantExact ? "exactMip" : "lpRoundRepair",
+      status,
+      boundDm: bound,
       proven: true,
       pruning,
-      modelVariables: relaxed.variables,
+      modelVariables,
       notes,
     };
   }
 
-  // Reduced-cost fixing: keep only options whose reduced cost ≤ UB − LB.
-  const slack = ub - boundDm + tol;
-  const keep: number[][] = [];
-  const fixedAssign = new Int32Array(n).fill(-2); // −2 = still free
-  let freeCount = 0;
-  model.items.forEach((item, i) => {
-    const pos: number[] = [];
-    for (let p = 0; p < item.digesters.length; p++) {
-      if (item.costsDm[p]! + item.kg * v[item.digesters[p]!]! - itemMin![i]! <= slack) pos.push(p);
-    }
-    const uKept = item.penaltyDm - itemMin![i]! <= slack;
-    if (pos.length + (uKept ? 1 : 0) === 1) fixedAssign[i] = pos.length === 1 ? item.digesters[pos[0]!]! : -1;
-    else freeCount++;
-    keep.push(pos);
-  });
-  // The reduced MIP: free items only, rooms net of fixed items.
-  const freeIdx: number[] = [];
-  const room = [...model.roomKg];
-  model.items.forEach((item, i) => {
-    const f = fixedAssign[i]!;
-    if (f === -2) freeIdx.push(i);
-    else if (f >= 0) room[f] = room[f]! - item.kg;
-  });
-  if (freeCount === 0) {
-    return {
-      assign: plan.assign,
-      method: "exactMip",
-      status: relaxed.status,
-      boundDm: ub,
-      proven: true,
-      pruning,
-      modelVariables: relaxed.variables,
-      notes,
-    };
+  // Polish: a small MIP over the options of smallest reduced cost (plus the incumbent's), a few thousand
+  // columns at most, split into independent parts. A heuristic: it only improves the incumbent.
+  const polishKeep = optionsWithin(model, assign, rc, polishThreshold(model, rc, ub - bound, POLISH_EXTRA_COLUMNS));
+  const polished = solveRestricted(model, assign, polishKeep, solver, Math.min(timeLimit, POLISH_TIME_LIMIT_S));
+  modelVariables = Math.max(modelVariables, polished.variables);
+  if (polished.objectiveDm < ub - 1e-9) {
+    assign = polished.assign;
+    ub = polished.objectiveDm;
+    status = polished.statuses.at(-1) ?? status;
   }
-  const subModel: AssignmentModel = {
-    items: freeIdx.map((i) => {
-      const item = model.items[i]!;
-      const pos = keep[i]!;
-      return {
-        kg: item.kg,
-        penaltyDm: item.penaltyDm,
-        digesters: Int32Array.from(pos, (p) => item.digesters[p]!),
-        costsDm: Float64Array.from(pos, (p) => item.costsDm[p]!),
-      };
-    }),
-    roomKg: room.map((r) => Math.max(0, r)),
-  };
-  // u stays only where its reduced cost allows it: the incumbent's options are all kept, so the sub-MIP stays feasible.
-  const keepU = freeIdx.map((i) => model.items[i]!.penaltyDm - itemMin![i]! <= slack);
-  const mipText = buildAssignmentLp(subModel, true, undefined, keepU);
-  const subVars = subModel.items.reduce((s, it) => s + it.digesters.length + 1, 0);
-  const sol = callSolver(solver, mipText, {
-    output_flag: false,
-    time_limit: timeLimit,
-    mip_rel_gap: 0,
-    mip_abs_gap: 0.05,
-  });
-  if ("error" in sol) {
-    notes.push(`HiGHS failed on the reduced MIP (${sol.error}); the plan is the rounded and repaired one.`);
+  if (!wantExact) {
     return {
-      assign: plan.assign,
+      assign,
       method: "lpRoundRepair",
-      status: `Solver error: ${sol.error}`,
-      boundDm,
-      proven: false,
+      status,
+      boundDm: bound,
+      proven: ub - bound <= tolOf(ub),
       pruning,
-      modelVariables: relaxed.variables,
+      modelVariables,
       notes,
     };
   }
-  const subRead = readAssignmentSolution(subModel, sol);
-  if (subRead.hasPoint) {
-    const candidate = Int32Array.from(plan.assign);
-    model.items.forEach((_, i) => {
-      if (fixedAssign[i]! !== -2) candidate[i] = fixedAssign[i]!;
-    });
-    const subAssign = roundPoint(subModel, subRead);
-    freeIdx.forEach((i, s) => {
-      candidate[i] = subAssign[s]!;
-    });
-    const cPlan = makePlan(model, candidate);
-    const cObj = planObjectiveDm(model, candidate);
-    if (overloadedCount(model, cPlan) === 0 && cObj <= ub + 1e-9) {
-      const proven = sol.Status === "Optimal";
-      return {
-        assign: candidate,
-        method: "exactMip",
-        status: sol.Status,
-        boundDm,
-        proven,
-        pruning,
-        modelVariables: Math.max(relaxed.variables, subVars),
-        notes,
-      };
-    }
+  if (ub - bound <= tolOf(ub)) {
+    return { assign, method: "exactMip", status, boundDm: bound, proven: true, pruning, modelVariables, notes };
   }
-  notes.push(
-    `HiGHS stopped on the reduced MIP (${sol.Status}) without a better plan; the rounded and repaired plan is shown and is not proven optimal.`,
-  );
+
+  // Exact: reduced-cost fixing. A pair whose reduced cost exceeds UB − LB cannot be in any plan better than
+  // the incumbent (c·x ≥ LB + Σ reduced costs of the pairs used), so only the rest is searched, exactly.
+  const coreKeep = optionsWithin(model, assign, rc, ub - bound + tolOf(ub));
+  const core = solveRestricted(model, assign, coreKeep, solver, timeLimit);
+  modelVariables = Math.max(modelVariables, core.variables);
+  if (core.error)
+    notes.push(
+      `HiGHS failed on part of the reduced MIP (${core.error}); that part keeps the incumbent and is not proven optimal.`,
+    );
+  const proven = core.allOptimal && !core.error;
+  if (!proven) {
+    notes.push(
+      `HiGHS stopped before proving the plan optimal (${core.statuses.filter((x) => x !== "Optimal").join(", ") || "no better plan"}); the plan shown is the best found, within the gap to the bound.`,
+    );
+  }
   return {
-    assign: plan.assign,
+    assign: core.objectiveDm <= ub + 1e-9 ? core.assign : assign,
     method: "exactMip",
-    status: sol.Status,
-    boundDm,
-    proven: false,
+    status: core.statuses.find((x) => x !== "Optimal") ?? "Optimal",
+    boundDm: bound,
+    proven,
     pruning,
-    modelVariables: Math.max(relaxed.variables, subVars),
+    modelVariables,
     notes,
   };
+}
+
+/** Extra columns (beyond each household's best option) a polish MIP may hold. */
+const POLISH_EXTRA_COLUMNS = 800;
+/** Time limit of each polish MIP, seconds. */
+const POLISH_TIME_LIMIT_S = 3;
+
+/** Reduced costs under multipliers v (see {@link lagrangianBound}): option p of item i, and "unplaced". */
+interface ReducedCosts {
+  option(i: number, p: number): number;
+  unplaced(i: number): number;
+  /** L_i, item i's smallest c + w·v (or P). A lower bound on the reduced cost of option p is c_p − L_i. */
+  readonly itemMin: Float64Array;
+}
+
+/** Largest reduced cost t ≤ slack such that about `extra` options with 0 < rc ≤ t exist. */
+function polishThreshold(model: AssignmentModel, rc: ReducedCosts, slack: number, extra: number): number {
+  const values: number[] = [];
+  model.items.forEach((item, i) => {
+    for (let p = 0; p < item.digesters.length && item.costsDm[p]! - rc.itemMin[i]! <= slack; p++) {
+      const x = rc.option(i, p);
+      if (x > 1e-9 && x <= slack) values.push(x);
+    }
+  });
+  if (values.length <= extra) return slack;
+  values.sort((a, b) => a - b);
+  return values[extra - 1]!;
+}
+
+/**
+ * Per item, the option positions with reduced cost ≤ `limit`, always
+ * including the incumbent's option; `u[i]` tells whether "unplaced" stays
+ * (its reduced cost ≤ limit, or the incumbent leaves the item unplaced).
+ */
+function optionsWithin(
+  model: AssignmentModel,
+  assign: Int32Array,
+  rc: ReducedCosts,
+  limit: number,
+): { pos: number[][]; u: boolean[] } {
+  const pos: number[][] = [];
+  const u: boolean[] = [];
+  model.items.forEach((item, i) => {
+    const keep: number[] = [];
+    let hasIncumbent = assign[i] === -1;
+    // Options are sorted by cost and rc(p) ≥ c_p − L_i, so the scan stops once that alone exceeds the limit.
+    for (let p = 0; p < item.digesters.length && item.costsDm[p]! - rc.itemMin[i]! <= limit; p++) {
+      if (rc.option(i, p) <= limit) {
+        keep.push(p);
+        if (item.digesters[p] === assign[i]) hasIncumbent = true;
+      }
+    }
+    if (!hasIncumbent) {
+      const p = item.digesters.indexOf(assign[i]!);
+      if (p >= 0) keep.push(p);
+      keep.sort((a, b) => a - b);
+    }
+    pos.push(keep);
+    u.push(assign[i] === -1 || rc.unplaced(i) <= limit);
+  });
+  return { pos, u };
+}
+
+interface RestrictedResult {
+  assign: Int32Array;
+  objectiveDm: number;
+  allOptimal: boolean;
+  statuses: string[];
+  variables: number;
+  error?: string;
+}
+
+/**
+ * Minimises the model over the kept options only, starting from a feasible
+ * incumbent whose options are all kept: items left with one option are
+ * fixed; the rest splits into independent parts (items linked through
+ * shared digesters, found by union–find); a part with one item takes its
+ * cheapest option with room; every other part is a HiGHS MIP with the
+ * incumbent's cost as cutoff (zero gap: costs are whole decimetres). A part
+ * keeps the incumbent unless HiGHS returns a feasible plan at least as good.
+ */
+function solveRestricted(
+  model: AssignmentModel,
+  incumbent: Int32Array,
+  keep: { pos: number[][]; u: boolean[] },
+  solver: LpSolver,
+  timeLimitS: number,
+): RestrictedResult {
+  const D = model.roomKg.length;
+  const assign = Int32Array.from(incumbent);
+  const room = [...model.roomKg];
+  const free: number[] = [];
+  model.items.forEach((item, i) => {
+    const options = keep.pos[i]!.length + (keep.u[i] ? 1 : 0);
+    if (options <= 1) {
+      if (assign[i]! >= 0) room[assign[i]!] = room[assign[i]!]! - item.kg;
+    } else free.push(i);
+  });
+  // Union–find over digesters: items sharing a digester belong to one part.
+  const parent = Int32Array.from({ length: D }, (_, d) => d);
+  const find = (d: number): number => {
+    while (parent[d] !== d) {
+      parent[d] = parent[parent[d]!]!;
+      d = parent[d]!;
+    }
+    return d;
+  };
+  for (const i of free) {
+    const item = model.items[i]!;
+    const ds = keep.pos[i]!.map((p) => item.digesters[p]!);
+    for (let k = 1; k < ds.length; k++) parent[find(ds[k]!)] = find(ds[0]!);
+  }
+  const parts = new Map<number, number[]>();
+  for (const i of free) {
+    const item = model.items[i]!;
+    const first = keep.pos[i]![0];
+    const key = first === undefined ? -1 - i : find(item.digesters[first]!);
+    let list = parts.get(key);
+    if (!list) parts.set(key, (list = []));
+    list.push(i);
+  }
+  const statuses: string[] = [];
+  let allOptimal = true;
+  let variables = 0;
+  let error: string | undefined;
+  for (const items of parts.values()) {
+    if (items.length === 1) {
+      const i = items[0]!;
+      const item = model.items[i]!;
+      let best = keep.u[i] ? -1 : assign[i]!;
+      let bestCost = costOf(item, best);
+      for (const p of keep.pos[i]!) {
+        const d = item.digesters[p]!;
+        if (room[d]! + KG_EPS >= item.kg && item.costsDm[p]! < bestCost) {
+          best = d;
+          bestCost = item.costsDm[p]!;
+        }
+      }
+      assign[i] = best;
+      continue;
+    }
+    const sub: AssignmentModel = {
+      items: items.map((i) => {
+        const item = model.items[i]!;
+        const pos = keep.pos[i]!;
+        return {
+          kg: item.kg,
+          penaltyDm: item.penaltyDm,
+          digesters: Int32Array.from(pos, (p) => item.digesters[p]!),
+          costsDm: Float64Array.from(pos, (p) => item.costsDm[p]!),
+        };
+      }),
+      roomKg: room.map((r) => Math.max(0, r)),
+    };
+    variables += sub.items.reduce((sum, it) => sum + it.digesters.length, 0) + items.filter((i) => keep.u[i]).length;
+    const incumbentDm = items.reduce((sum, i) => sum + costOf(model.items[i]!, assign[i]!), 0);
+    const sol = callSolver(
+      solver,
+      buildAssignmentLp(
+        sub,
+        true,
+        undefined,
+        items.map((i) => keep.u[i]!),
+      ),
+      {
+        output_flag: false,
+        time_limit: timeLimitS,
+        mip_rel_gap: 0,
+        mip_abs_gap: 0.05,
+        objective_bound: incumbentDm + 0.5,
+      },
+    );
+    if ("error" in sol) {
+      error = sol.error;
+      allOptimal = false;
+      continue;
+    }
+    statuses.push(sol.Status);
+    if (sol.Status !== "Optimal") allOptimal = false;
+    const read = readAssignmentSolution(sub, sol);
+    if (!read.hasPoint) continue;
+    const subAssign = roundPoint(sub, read);
+    const load = new Float64Array(D);
+    let cost = 0;
+    let ok = true;
+    items.forEach((i, s) => {
+      const d = subAssign[s]!;
+      cost += costOf(model.items[i]!, d);
+      if (d >= 0) load[d] = load[d]! + model.items[i]!.kg;
+    });
+    load.forEach((l, d) => {
+      if (l > sub.roomKg[d]! + KG_EPS) ok = false;
+    });
+    if (ok && cost <= incumbentDm + 1e-9) items.forEach((i, s) => (assign[i] = subAssign[s]!));
+  }
+  return { assign, objectiveDm: planObjectiveDm(model, assign), allOptimal, statuses, variables, error };
 }
 
 /* ------------------------------------------------------------------ */
@@ -1254,7 +1458,7 @@ function assemble(prep: Prepared, outcome: SolveOutcome): AssignmentResult {
     );
   if (outcome.pruning) {
     messages.push(
-      `Large network (${model.items.length} households to place): the LP relaxation was solved over each household's ${outcome.pruning.candidatesPerHousehold} nearest digesters, every other pair was priced with the LP duals (${outcome.pruning.pairsAddedByPricing} added back), then rounded and repaired; the plan is within ${gap === null ? "an unknown margin" : `${(gap * 100).toFixed(2)} %`} of the lower bound but not proven optimal.`,
+      `Large network (${model.items.length} households to place): the LP relaxation was solved over each household's ${outcome.pruning.candidatesPerHousehold} most promising digesters (smallest Lagrangian reduced cost), every other pair was priced with the LP duals (${outcome.pruning.pairsAddedByPricing} added back), then rounded, repaired and improved; the plan is within ${gap === null ? "an unknown margin" : `${(gap * 100).toFixed(2)} %`} of a lower bound valid for all pairs, but not proven optimal.`,
     );
   }
   return {

@@ -42,7 +42,7 @@ function RoundSheetPage() {
           <h2 id="stops-heading" className="mb-2 text-2xl font-bold">
             Stops in order
           </h2>
-          <Table label="Stops in order">
+          <Table label="Stops in order, with addresses">
             <TableCaption className="sr-only">Each stop with its address, buckets and walk from the previous point</TableCaption>
             <THead>
               <TR>

@@ -288,7 +288,7 @@ function ProposalView({ proposal, excluded, onToggleExcluded }: { proposal: Prop
     <>
       <div className="grid gap-4 sm:grid-cols-2 lg:grid-cols-4">
         <Stat label="Total walk, proposed" value={km(proposal.totalDistanceM)} />
-        <Stat label="Total walk, today" value={km(proposal.currentDistanceM)} hint="Households assigned today, to their digester." />
+        <Stat label="Total walk, today" value={km(proposal.currentDistanceM)} hint="Only households that have a digester today." />
         <Stat label="Nearest-with-room rule" value={km(proposal.baselineDistanceM)} hint="The obvious plan, for comparison." />
         <Stat
           label="Solver"
@@ -322,7 +322,7 @@ function ProposalView({ proposal, excluded, onToggleExcluded }: { proposal: Prop
           </ul>
         </section>
       ) : null}
-      <div className="grid gap-6 lg:grid-cols-[3fr_2fr]">
+      <div className="grid gap-6">
         <Suspense fallback={<p>Loading the map…</p>}>
           <ProposalMap proposal={proposal} />
         </Suspense>
@@ -332,9 +332,9 @@ function ProposalView({ proposal, excluded, onToggleExcluded }: { proposal: Prop
             <p className="text-base text-muted">{proposal.weeklyRoomMethod}</p>
           </CardHeader>
           <CardContent>
-            <ul className="flex flex-col gap-4">
+            <ul className="grid gap-4 sm:grid-cols-2">
               {proposal.digesters.map((d) => (
-                <li key={d.id} className="flex flex-col gap-2">
+                <li key={d.id} className="flex flex-col gap-3">
                   <Progress
                     label={d.name}
                     value={d.roomKg > 0 ? d.loadKg : 0}

@@ -61,6 +61,7 @@ export function RebalancingPanel() {
                     ) : (
                       <Select
                         aria-label={`Digester for ${i.householdName}'s drop-off`}
+                        className="min-w-64"
                         value={String(target(i))}
                         onChange={(e) => setChoice({ ...choice, [i.dropOffId]: e.target.value })}
                         options={i.suggestions.map((s) => ({

@@ -168,10 +168,10 @@ export async function propose(request: ProposalRequest, now = new Date()): Promi
   const noRoom = states.filter((s) => !s.closed && !excluded.has(s.digester.id) && digesterWeeklyRoomKg(s, false) <= 0);
   if (noRoom.length > 0) {
     messages.push(
-      `${noRoom.length === 1 ? "This digester has" : `${noRoom.length} digesters have`} no room this week (no temperature reading in 3 days, an acid warning or a full week): ${noRoom
+      `${noRoom
         .slice(0, 5)
         .map((s) => s.digester.name)
-        .join(", ")}${noRoom.length > 5 ? ", …" : ""}.`,
+        .join(", ")}${noRoom.length > 5 ? ` and ${noRoom.length - 5} more` : ""} ${noRoom.length === 1 ? "has" : "have"} no room this week (no temperature reading in 3 days, an acid warning, or a week already full), so ${noRoom.length === 1 ? "it takes" : "they take"} no households.`,
     );
   }
 

@@ -63,7 +63,7 @@ export function ProposalMap({ proposal }: { proposal: Proposal }) {
           <Marker
             key={d.id}
             position={[d.lat, d.lng]}
-            icon={textMarker(d.available ? "ok" : d.status === "active" ? "resting" : d.status, d.name)}
+            icon={textMarker(d.available ? (d.roomKg > 0 ? "ok" : "full") : d.status === "active" ? "resting" : d.status, d.name)}
             title={`${d.name}: ${d.utilisation === null ? "no room" : `${Math.round(d.utilisation * 100)} % of its weekly room`}`}
             alt={d.name}
           />

@@ -1,7 +1,7 @@
 import type { ReactNode } from "react";
 import { Link, useParams, type LoaderFunctionArgs } from "react-router-dom";
 import { useQueryClient, useSuspenseQuery, type QueryClient } from "@tanstack/react-query";
-import { Badge, buttonClasses, PageHeader, Spinner } from "@/components/ui";
+import { Alert, Badge, buttonClasses, PageHeader, Spinner } from "@/components/ui";
 import { RouteError } from "@/components/errors/route-error";
 import { paths } from "@/config/paths";
 import { meQueryOptions } from "@/features/auth/api/get-me";
@@ -49,6 +49,14 @@ function Section({ id, title, children }: { id: string; title: string; children:
   );
 }
 
+function LoadFailed({ what, error }: { what: string; error: Error }) {
+  return (
+    <Alert variant="danger" title={`The ${what} could not be shown`} announce="off">
+      <p>{error.message}</p>
+    </Alert>
+  );
+}
+
 function Records({ id }: { id: number }) {
   const readings = useReadings(id);
   const feedings = useFeedings(id);
@@ -57,12 +65,16 @@ function Records({ id }: { id: number }) {
       <h3 className="text-xl font-bold">Readings</h3>
       {readings.data ? (
         <ReadingsTable digesterId={id} readings={readings.data} />
+      ) : readings.error ? (
+        <LoadFailed what="readings" error={readings.error} />
       ) : (
         <Spinner label="Loading the readings" />
       )}
       <h3 className="text-xl font-bold">Feedings</h3>
       {feedings.data ? (
         <FeedingsTable digesterId={id} feedings={feedings.data} />
+      ) : feedings.error ? (
+        <LoadFailed what="feedings" error={feedings.error} />
       ) : (
         <Spinner label="Loading the feedings" />
       )}

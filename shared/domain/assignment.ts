@@ -152,6 +152,8 @@ export interface AssignmentOptions {
   readonly pricingRounds?: number;
   /** HiGHS time limit per solve, seconds. Default 10; a MIP stopped by it returns the best plan found, not proven. */
   readonly timeLimitS?: number;
+  /** Relax-and-round: also run the polish MIP (always run on the exact path). Default false: on large networks it rarely finds better within its time. */
+  readonly polish?: boolean;
   /** LP algorithm passed to HiGHS for the relaxation. Default "choose". */
   readonly lpAlgorithm?: "choose" | "simplex" | "ipm";
 }
@@ -761,7 +763,7 @@ const SWAP_OPTIONS = 10;
  * their digesters when both fit and the sum falls), until no move improves
  * or `maxPasses` is reached. Every move keeps the plan feasible.
  */
-function improve(table: CostTable, plan: Plan, maxPasses = 8): void {
+function improve(table: CostTable, plan: Plan, maxPasses = 5): void {
   const model = table.model;
   const n = model.items.length;
   const members: number[][] = model.roomKg.map(() => []);
@@ -876,11 +878,19 @@ function relax(
   subset: number[][] | undefined,
   pricingRounds: number,
   options: HighsOptionsLike,
-): { read: ReadSolution | null; status: string; added: number; variables: number; subset: number[][] | undefined } {
+): {
+  read: ReadSolution | null;
+  status: string;
+  added: number;
+  complete: boolean;
+  variables: number;
+  subset: number[][] | undefined;
+} {
   let added = 0;
   let read: ReadSolution | null = null;
   let status = "Not run";
   let variables = 0;
+  let complete = subset === undefined;
   for (let round = 0; ; round++) {
     const lp = buildAssignmentLp(model, false, subset);
     variables = Math.max(
@@ -888,31 +898,36 @@ function relax(
       model.items.reduce((s, it, i) => s + (subset?.[i]?.length ?? it.digesters.length) + 1, 0),
     );
     const sol = callSolver(solver, lp, options);
-    if ("error" in sol) return { read, status: `Solver error: ${sol.error}`, added, variables, subset };
+    if ("error" in sol)
+      return { read, status: `Solver error: ${sol.error}`, added, complete: false, variables, subset };
     status = sol.Status;
     read = readAssignmentSolution(model, sol, subset);
-    if (!read.hasPoint || !subset || round >= pricingRounds) break;
+    if (!read.hasPoint || !subset) break;
     // Price every pruned pair: reduced cost c + w·v − L_i(subset) < 0 means the LP over all pairs is better.
+    // After the last allowed solve the pairs are only counted (the subset must keep matching the LP point).
     const v = read.capacityMultipliers;
+    const grow = round < pricingRounds;
     let addedNow = 0;
     model.items.forEach((item, i) => {
       const pos = subset[i]!;
       let li = item.penaltyDm;
       for (const p of pos) li = Math.min(li, item.costsDm[p]! + item.kg * v[item.digesters[p]!]!);
       const inSet = new Set(pos);
+      const extra: number[] = [];
       for (let p = 0; p < item.digesters.length && item.costsDm[p]! < li - 1e-6; p++) {
-        if (inSet.has(p)) continue;
-        if (item.costsDm[p]! + item.kg * v[item.digesters[p]!]! < li - 1e-6) {
-          pos.push(p);
-          addedNow++;
-        }
+        if (!inSet.has(p) && item.costsDm[p]! + item.kg * v[item.digesters[p]!]! < li - 1e-6) extra.push(p);
       }
-      pos.sort((a, b) => a - b);
+      addedNow += extra.length;
+      if (grow && extra.length > 0) {
+        pos.push(...extra);
+        pos.sort((a, b) => a - b);
+      }
     });
+    complete = addedNow === 0;
+    if (!grow || complete) break;
     added += addedNow;
-    if (addedNow === 0) break;
   }
-  return { read, status, added, variables, subset };
+  return { read, status, added, complete, variables, subset };
 }
 
 /**
@@ -937,6 +952,8 @@ function heuristicPlan(model: AssignmentModel, start: Int32Array | null): Plan {
 
 /** Subgradient steps on the Lagrangian bound (a fixed count, so results are reproducible). */
 const SUBGRADIENT_STEPS = 120;
+/** Subgradient steps that choose the large-network candidates [judgement: 60 left enough negative reduced costs to force a second LP solve on the benchmark; 120 did not]. */
+const CANDIDATE_SUBGRADIENT_STEPS = 120;
 
 /**
  * Improves capacity multipliers v by projected subgradient ascent on
@@ -1048,7 +1065,7 @@ function solveCore(prep: Prepared, solver: LpSolver, options: AssignmentOptions)
     // Large networks: multipliers from subgradient steps over all pairs (cheap, in JS) choose each household's
     // candidates by reduced cost, where the LP optimum lives, instead of by distance alone.
     const greedyUb = planObjectiveDm(model, greedyNearestWithRoom(model).assign);
-    preBound = improveMultipliers(model, new Float64Array(model.roomKg.length), greedyUb);
+    preBound = improveMultipliers(model, new Float64Array(model.roomKg.length), greedyUb, CANDIDATE_SUBGRADIENT_STEPS);
     subset = candidatesByReducedCost(model, preBound.multipliers, k);
   }
   const relaxed = relax(model, solver, subset, wantExact ? 0 : (options.pricingRounds ?? 1), lpOptions);
@@ -1060,8 +1077,9 @@ function solveCore(prep: Prepared, solver: LpSolver, options: AssignmentOptions)
   let v: Float64Array = new Float64Array(model.roomKg.length);
   if (read?.hasPoint) {
     v = read.capacityMultipliers;
-    if (relaxed.subset) {
+    if (relaxed.subset && !relaxed.complete) {
       // Over pruned pairs the LP duals may under-price the rest; keep the best valid multipliers found.
+      // (When pricing found nothing, the duals are optimal for all pairs and the bound is the LP bound.)
       const polished = improveMultipliers(model, v, heuristicUb, 40);
       if (polished.boundDm > lagrangianBound(model, v).boundDm) v = polished.multipliers;
       if (preBound && preBound.boundDm > lagrangianBound(model, v).boundDm) v = preBound.multipliers;
@@ -1117,8 +1135,20 @@ function solveCore(prep: Prepared, solver: LpSolver, options: AssignmentOptions)
     };
   }
 
-  // Polish: a small MIP over the options of smallest reduced cost (plus the incumbent's), a few thousand
-  // columns at most, split into independent parts. A heuristic: it only improves the incumbent.
+  if (!wantExact && !(options.polish ?? false)) {
+    return {
+      assign,
+      method: "lpRoundRepair",
+      status,
+      boundDm: bound,
+      proven: ub - bound <= tolOf(ub),
+      pruning,
+      modelVariables,
+      notes,
+    };
+  }
+  // Polish: a small MIP over the options of smallest reduced cost (plus the incumbent's), under a thousand
+  // columns, split into independent parts. A heuristic: it only improves the incumbent.
   const polishKeep = optionsWithin(model, assign, rc, polishThreshold(model, rc, ub - bound, POLISH_EXTRA_COLUMNS));
   const polished = solveRestricted(model, assign, polishKeep, solver, Math.min(timeLimit, POLISH_TIME_LIMIT_S));
   modelVariables = Math.max(modelVariables, polished.variables);
@@ -1193,8 +1223,7 @@ function polishThreshold(model: AssignmentModel, rc: ReducedCosts, slack: number
     }
   });
   if (values.length <= extra) return slack;
-  values.sort((a, b) => a - b);
-  return values[extra - 1]!;
+  return Float64Array.from(values).sort()[extra - 1]!;
 }
 
 /**

@@ -1118,11 +1118,13 @@ function solveCore(prep: Prepared, solver: LpSolver, options: AssignmentOptions)
     itemMin: mins,
   };
   const tolOf = (x: number) => 1e-6 * Math.max(1, Math.abs(x));
+  // Costs are whole decimetres, so a plan is optimal once it is below the next whole decimetre above the bound.
+  const closes = (x: number) => x <= Math.ceil(bound - 1e-9 * Math.max(1, Math.abs(bound))) + 1e-9;
   let assign = plan.assign;
   let ub = planObjectiveDm(model, assign);
   let status = relaxed.status;
   let modelVariables = lpVariables;
-  if (ub - bound <= tolOf(ub)) {
+  if (closes(ub)) {
     return {
       assign,
       method: wantExact ? "exactMip" : "lpRoundRepair",
@@ -1141,7 +1143,7 @@ function solveCore(prep: Prepared, solver: LpSolver, options: AssignmentOptions)
       method: "lpRoundRepair",
       status,
       boundDm: bound,
-      proven: ub - bound <= tolOf(ub),
+      proven: closes(ub),
       pruning,
       modelVariables,
       notes,
@@ -1163,13 +1165,13 @@ function solveCore(prep: Prepared, solver: LpSolver, options: AssignmentOptions)
       method: "lpRoundRepair",
       status,
       boundDm: bound,
-      proven: ub - bound <= tolOf(ub),
+      proven: closes(ub),
       pruning,
       modelVariables,
       notes,
     };
   }
-  if (ub - bound <= tolOf(ub)) {
+  if (closes(ub)) {
     return { assign, method: "exactMip", status, boundDm: bound, proven: true, pruning, modelVariables, notes };
   }
 

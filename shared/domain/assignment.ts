@@ -132,6 +132,7 @@ export interface AssignmentDigester {
   readonly available: boolean;
 }
 
+/** Input of {@link solveAssignment} and {@link nearestWithRoomBaseline}. */
 export interface AssignmentInput {
   readonly households: readonly AssignmentHousehold[];
   readonly digesters: readonly AssignmentDigester[];
@@ -139,6 +140,7 @@ export interface AssignmentInput {
   readonly maxWalkingDistanceM?: number | null;
 }
 
+/** Tuning of {@link solveAssignment}; the defaults suit the product. */
 export interface AssignmentOptions {
   /** "auto" (default): exact up to the limits below, relax-and-round above them. */
   readonly mode?: "auto" | "exact" | "relaxAndRound";
@@ -158,6 +160,7 @@ export interface AssignmentOptions {
   readonly lpAlgorithm?: "choose" | "simplex" | "ipm";
 }
 
+/** One household placed at one digester; distance is haversine metres (see geo.ts). */
 export interface HouseholdAssignment {
   readonly householdId: string;
   readonly digesterId: string;
@@ -166,6 +169,7 @@ export interface HouseholdAssignment {
   readonly pinned: boolean;
 }
 
+/** Weekly kg assigned to a digester against its weekly room (0 for a digester that takes nobody). */
 export interface DigesterLoad {
   readonly digesterId: string;
   readonly available: boolean;
@@ -176,6 +180,7 @@ export interface DigesterLoad {
   readonly householdCount: number;
 }
 
+/** Why a household could not be placed: no map location, no valid kg, no available digester within the walking limit, or every reachable digester full. */
 export type UnplacedReason = "noLocation" | "invalidAmount" | "noDigesterWithinReach" | "noRoom";
 
 /** What the household can do instead: bring it to the nearest digester another day, or compost at home. */
@@ -183,6 +188,7 @@ export type UnplacedSuggestion =
   | { readonly kind: "anotherDay"; readonly digesterId: string; readonly distanceM: Metres }
   | { readonly kind: "compostAtHome" };
 
+/** A household the plan could not place, with the reason, a suggestion and a sentence for the coordinator. */
 export interface UnplacedHousehold {
   readonly householdId: string;
   readonly weeklyKg: Kg;
@@ -191,6 +197,7 @@ export interface UnplacedHousehold {
   readonly message: string;
 }
 
+/** Why a pin cannot be kept: the digester does not exist, is not available, or earlier pins already fill its room. */
 export type PinContradictionKind = "unknownDigester" | "digesterUnavailable" | "pinsOverloadDigester";
 
 /** A pin that cannot be kept; the household is then placed by the solver like any other. */
@@ -209,6 +216,7 @@ export interface PinContradiction {
 export type AssignmentMethod =
   "exactMip" | "lpRoundRepair" | "nearestWithRoom" | "localSearchFallback" | "nothingToSolve";
 
+/** A proposed plan with its figures; `objectiveM`, `lpBoundM` and `gapToLpBound` are in metres of the model objective (see the module comment). */
 export interface AssignmentResult {
   readonly assignments: readonly HouseholdAssignment[];
   readonly digesterLoads: readonly DigesterLoad[];

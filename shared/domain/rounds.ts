@@ -35,6 +35,7 @@
 import { type Kg, type Metres, kg, metres } from "../units";
 import { type LatLng, haversineM, isValidLatLng } from "./geo";
 
+/** A household that asked for a collection on the date planned. */
 export interface CollectionStop {
   readonly householdId: string;
   readonly lat: number | null;
@@ -43,6 +44,7 @@ export interface CollectionStop {
   readonly loadKg: number;
 }
 
+/** A volunteer with a cargo bike. */
 export interface CollectionVolunteer {
   readonly id: string;
   /** Where the volunteer's rounds start. */
@@ -52,6 +54,7 @@ export interface CollectionVolunteer {
   readonly bikeLoadKg: number;
 }
 
+/** A digester a round may end at. */
 export interface CollectionDigester {
   readonly id: string;
   readonly lat: number;
@@ -60,12 +63,14 @@ export interface CollectionDigester {
   readonly roomKg: number;
 }
 
+/** Input of {@link planCollectionRounds}, {@link exactCollectionRounds} and {@link collectionRoundsLowerBoundM}. */
 export interface CollectionRoundsInput {
   readonly stops: readonly CollectionStop[];
   readonly volunteers: readonly CollectionVolunteer[];
   readonly digesters: readonly CollectionDigester[];
 }
 
+/** Tuning of {@link planCollectionRounds}; the defaults suit the product. */
 export interface CollectionRoundsOptions {
   /** Savings shape parameters λ to try; default [1, 0.6, 1.4]. */
   readonly savingsShapes?: readonly number[];
@@ -78,6 +83,7 @@ export interface CollectionRoundsOptions {
   readonly improvementIterations?: number;
 }
 
+/** One stop of a round, in riding order. */
 export interface RoundStop {
   readonly householdId: string;
   readonly loadKg: Kg;
@@ -87,6 +93,7 @@ export interface RoundStop {
   readonly legM: Metres;
 }
 
+/** One round: a volunteer, stops in order, the digester it ends at; lengths in haversine metres. */
 export interface CollectionRound {
   readonly volunteerId: string;
   readonly stops: readonly RoundStop[];
@@ -97,9 +104,11 @@ export interface CollectionRound {
   readonly endLegM: Metres;
 }
 
+/** Why a stop could not be planned. */
 export type UnplacedStopReason =
   "noLocation" | "invalidLoad" | "heavierThanAnyBike" | "noDigesterWithRoom" | "noVolunteer";
 
+/** A stop left out of every round, with the reason and a sentence for the coordinator. */
 export interface UnplacedStop {
   readonly householdId: string;
   readonly loadKg: Kg;
@@ -107,6 +116,7 @@ export interface UnplacedStop {
   readonly message: string;
 }
 
+/** The rounds for one date, what could not be planned, and the load delivered to each digester. */
 export interface CollectionPlan {
   readonly rounds: readonly CollectionRound[];
   readonly unplacedStops: readonly UnplacedStop[];

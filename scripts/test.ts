@@ -3,7 +3,7 @@
  * so both can run at once), Chromium when missing, then typecheck, lint, client build and
  * every Vitest project including the browser tests. Stops what it started, even on failure.
  */
-import { spawnSync } from "node:child_process";
+import { spawn, spawnSync } from "node:child_process";
 import { existsSync } from "node:fs";
 import path from "node:path";
 import pg from "pg";
@@ -49,13 +49,22 @@ async function recreateDatabase(name: string) {
   }
 }
 
-function step(name: string, args: string[], env: NodeJS.ProcessEnv = process.env): boolean {
+/** Runs one check as a child process; its output is buffered when `quiet` so parallel checks do not interleave. */
+function step(name: string, args: string[], env: NodeJS.ProcessEnv = process.env, quiet = false): Promise<boolean> {
   log(`── ${name}`);
   const started = Date.now();
-  const r = spawnSync(process.execPath, args, { cwd: root, stdio: "inherit", env });
-  const ok = r.status === 0;
-  log(`${ok ? "✔" : "✘"} ${name} (${((Date.now() - started) / 1000).toFixed(1)} s)`);
-  return ok;
+  return new Promise((resolve) => {
+    const child = spawn(process.execPath, args, { cwd: root, stdio: quiet ? ["ignore", "pipe", "pipe"] : "inherit", env });
+    let output = "";
+    child.stdout?.on("data", (d) => (output += String(d)));
+    child.stderr?.on("data", (d) => (output += String(d)));
+    child.on("close", (code) => {
+      const ok = code === 0;
+      if (output.trim()) process.stdout.write(output);
+      log(`${ok ? "✔" : "✘"} ${name} (${((Date.now() - started) / 1000).toFixed(1)} s)`);
+      resolve(ok);
+    });
+  });
 }
 
 async function main(): Promise<number> {
@@ -83,8 +92,12 @@ async function main(): Promise<number> {
 
   const bin = (pkg: string, file: string) => path.join(root, "node_modules", pkg, file);
   const results: Array<[string, boolean]> = [];
-  results.push(["typecheck", step("typecheck", [bin("typescript", "bin/tsc"), "--noEmit", "-p", "."], env)]);
-  results.push(["lint", step("lint", [bin("eslint", "bin/eslint.js"), "."], env)]);
+  // Typecheck and lint use one core each; the client build follows (the browser tests need it).
+  const [typecheckOk, lintOk] = await Promise.all([
+    step("typecheck", [bin("typescript", "bin/tsc"), "--noEmit", "-p", "."], env, true),
+    step("lint", [bin("eslint", "bin/eslint.js"), "."], env, true),
+  ]);
+  results.push(["typecheck", typecheckOk], ["lint", lintOk]);
   let built = true;
   try {
     buildClientIfStale(log, "dist");
@@ -92,7 +105,7 @@ async function main(): Promise<number> {
     built = false;
   }
   results.push(["client build", built]);
-  results.push(["vitest", step("vitest (shared, server, client, e2e)", [bin("vitest", "vitest.mjs"), "run"], env)]);
+  results.push(["vitest", await step("vitest (shared, server, client, e2e)", [bin("vitest", "vitest.mjs"), "run"], env)]);
 
   const failed = results.filter(([, ok]) => !ok).map(([n]) => n);
   log(`Finished in ${((Date.now() - t0) / 1000).toFixed(0)} s: ${failed.length ? `FAILED: ${failed.join(", ")}` : "all checks passed"}.`);

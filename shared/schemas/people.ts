@@ -41,7 +41,7 @@ export const InvitePersonSchema = z
     email: EmailSchema,
     name: z.string().trim().max(120, "Use at most 120 characters.").default(""),
     roles: RolesSchema.min(1, "Give the person at least one role."),
-    householdId: z.number().int().positive().nullable().optional(),
+    householdId: z.number().int().positive().max(2_147_483_647).nullable().optional(),
   })
   .strict();
 export type InvitePerson = z.input<typeof InvitePersonSchema>;
@@ -59,7 +59,7 @@ export const UpdatePersonSchema = z
     name: PersonNameSchema.optional(),
     roles: RolesSchema.optional(),
     status: z.enum(["active", "disabled"]).optional(),
-    householdId: z.number().int().positive().nullable().optional(),
+    householdId: z.number().int().positive().max(2_147_483_647).nullable().optional(),
     isVolunteer: z.boolean().optional(),
     bikeLoadKg: z.number().positive().max(500, "At most 500 kg.").nullable().optional(),
     startLat: z.number().min(-90).max(90).nullable().optional(),
@@ -78,7 +78,7 @@ export const DigesterIdParamsSchema = PersonIdParamsSchema;
 export const SetStewardsSchema = z
   .object({
     personIds: z
-      .array(z.number().int().positive())
+      .array(z.number().int().positive().max(2_147_483_647))
       .max(50)
       .refine((ids) => new Set(ids).size === ids.length, "Name each person once."),
   })

@@ -7,7 +7,6 @@ import {
   sortFn_text,
   tableFeatures,
   useTable,
-  type SortDirection as TableSortDirection,
 } from "@tanstack/react-table";
 import type { Proposal, ProposalAssignment } from "@shared/schemas/assignments";
 import {
@@ -32,11 +31,11 @@ import {
   TH,
   THead,
   TR,
-  type SortDirection,
 } from "@/components/ui";
 import { ApiError } from "@/lib/api-client";
 import { useApplyProposal } from "../api/apply";
 import { usePropose } from "../api/propose";
+import { ariaSort } from "@/components/data-table/aria-sort";
 
 const ProposalMap = lazy(async () => ({ default: (await import("./proposal-map")).ProposalMap }));
 
@@ -46,10 +45,6 @@ const features = tableFeatures({
   sortFns: { alphanumeric: sortFn_alphanumeric, text: sortFn_text },
 });
 const helper = createColumnHelper<typeof features, ProposalAssignment>();
-
-function ariaSort(sorted: false | TableSortDirection): SortDirection {
-  return sorted === "asc" ? "ascending" : sorted === "desc" ? "descending" : "none";
-}
 
 const km = (m: number) => (m >= 1000 ? `${(m / 1000).toFixed(2)} km` : `${Math.round(m)} m`);
 const kg1 = (x: number) => `${x.toFixed(1)} kg`;
@@ -112,11 +107,14 @@ export function AssignmentBoard() {
     () =>
       helper.columns([
         helper.accessor("householdName", { header: "Household", sortFn: "text" }),
-        helper.accessor((a) => (a.fromDigesterId === null ? "—" : (names.get(a.fromDigesterId) ?? `Digester ${a.fromDigesterId}`)), {
-          id: "from",
-          header: "Today",
-          sortFn: "text",
-        }),
+        helper.accessor(
+          (a) => (a.fromDigesterId === null ? "—" : (names.get(a.fromDigesterId) ?? `Digester ${a.fromDigesterId}`)),
+          {
+            id: "from",
+            header: "Today",
+            sortFn: "text",
+          },
+        ),
         helper.accessor((a) => names.get(a.toDigesterId) ?? `Digester ${a.toDigesterId}`, {
           id: "to",
           header: "Proposed",
@@ -124,21 +122,36 @@ export function AssignmentBoard() {
           cell: (info) => (
             <span className="flex flex-wrap items-center gap-2">
               {info.getValue()}
-              {info.row.original.changed && info.row.original.fromDigesterId !== info.row.original.toDigesterId ? <Badge tone="primary">Moves</Badge> : null}
+              {info.row.original.changed && info.row.original.fromDigesterId !== info.row.original.toDigesterId ? (
+                <Badge tone="primary">Moves</Badge>
+              ) : null}
             </span>
           ),
         }),
         helper.accessor("distanceM", { header: "Walk", sortFn: "alphanumeric", cell: (info) => km(info.getValue()) }),
-        helper.accessor("weeklyKg", { header: "Scraps a week", sortFn: "alphanumeric", cell: (info) => kg1(info.getValue()) }),
+        helper.accessor("weeklyKg", {
+          header: "Scraps a week",
+          sortFn: "alphanumeric",
+          cell: (info) => kg1(info.getValue()),
+        }),
         helper.display({
           id: "pin",
           header: "Pin",
           cell: (info) => {
             const a = info.row.original;
             return (
-              <Button type="button" size="sm" variant={a.pinned ? "secondary" : "outline"} onClick={() => togglePin(a)} disabled={propose.isPending}>
+              <Button
+                type="button"
+                size="sm"
+                variant={a.pinned ? "secondary" : "outline"}
+                onClick={() => togglePin(a)}
+                disabled={propose.isPending}
+              >
                 {a.pinned ? "Unpin" : "Pin"}
-                <span className="sr-only"> {a.householdName} {a.pinned ? "" : `to ${names.get(a.toDigesterId) ?? ""}`}</span>
+                <span className="sr-only">
+                  {" "}
+                  {a.householdName} {a.pinned ? "" : `to ${names.get(a.toDigesterId) ?? ""}`}
+                </span>
               </Button>
             );
           },
@@ -149,7 +162,12 @@ export function AssignmentBoard() {
     [names, propose.isPending, pins, unpins],
   );
 
-  const table = useTable({ features, columns, data: rows, initialState: { sorting: [{ id: "householdName", desc: false }] } });
+  const table = useTable({
+    features,
+    columns,
+    data: rows,
+    initialState: { sorting: [{ id: "householdName", desc: false }] },
+  });
 
   const confirmApply = () => {
     if (!proposal) return;
@@ -190,7 +208,9 @@ export function AssignmentBoard() {
           {proposal ? "Run the proposal again" : "Run a proposal"}
         </Button>
       </form>
-      <p className="text-muted">Nothing changes until you apply. Pins and excluded digesters are used by the next proposal.</p>
+      <p className="text-muted">
+        Nothing changes until you apply. Pins and excluded digesters are used by the next proposal.
+      </p>
 
       {done ? (
         <Alert variant="success" title="Assignments changed">
@@ -203,7 +223,12 @@ export function AssignmentBoard() {
         </Alert>
       ) : null}
       {apply.error ? (
-        <Alert variant="danger" title={apply.error instanceof ApiError && apply.error.status === 409 ? "The assignment changed" : "Could not apply"}>
+        <Alert
+          variant="danger"
+          title={
+            apply.error instanceof ApiError && apply.error.status === 409 ? "The assignment changed" : "Could not apply"
+          }
+        >
           {apply.error.message}
         </Alert>
       ) : null}
@@ -216,13 +241,19 @@ export function AssignmentBoard() {
             <h2 id="changes-heading" className="text-2xl font-bold">
               Changes against today ({changes.length})
             </h2>
-            <Checkbox label="Show only households that change" checked={onlyChanges} onChange={(e) => setOnlyChanges(e.target.checked)} />
+            <Checkbox
+              label="Show only households that change"
+              checked={onlyChanges}
+              onChange={(e) => setOnlyChanges(e.target.checked)}
+            />
           </div>
           {rows.length === 0 ? (
             <EmptyState title="No changes" description="Today's assignment is already the best the scheduler found." />
           ) : (
             <Table label="Households and their proposed digesters">
-              <TableCaption className="sr-only">Each household, today's digester, the proposed one, the walk and the weekly scraps</TableCaption>
+              <TableCaption className="sr-only">
+                Each household, today's digester, the proposed one, the walk and the weekly scraps
+              </TableCaption>
               <THead>
                 {table.getHeaderGroups().map((group) => (
                   <TR key={group.id}>
@@ -232,7 +263,11 @@ export function AssignmentBoard() {
                         <TH
                           key={header.id}
                           sort={canSort ? ariaSort(header.column.getIsSorted()) : undefined}
-                          onSort={canSort ? () => header.column.toggleSorting(header.column.getIsSorted() === "asc") : undefined}
+                          onSort={
+                            canSort
+                              ? () => header.column.toggleSorting(header.column.getIsSorted() === "asc")
+                              : undefined
+                          }
                         >
                           {header.isPlaceholder ? null : <table.FlexRender header={header} />}
                         </TH>
@@ -255,7 +290,11 @@ export function AssignmentBoard() {
             </Table>
           )}
           <div className="flex flex-wrap gap-3">
-            <Button type="button" onClick={() => setConfirming(true)} disabled={changes.length === 0 || propose.isPending}>
+            <Button
+              type="button"
+              onClick={() => setConfirming(true)}
+              disabled={changes.length === 0 || propose.isPending}
+            >
               Apply {changes.length} change{changes.length === 1 ? "" : "s"}
             </Button>
           </div>
@@ -282,14 +321,31 @@ export function AssignmentBoard() {
   );
 }
 
-function ProposalView({ proposal, excluded, onToggleExcluded }: { proposal: Proposal; excluded: number[]; onToggleExcluded: (id: number) => void }) {
-  const gap = proposal.gapToLpBound === null ? "no bound" : `${(proposal.gapToLpBound * 100).toFixed(2)} % from the bound`;
+function ProposalView({
+  proposal,
+  excluded,
+  onToggleExcluded,
+}: {
+  proposal: Proposal;
+  excluded: number[];
+  onToggleExcluded: (id: number) => void;
+}) {
+  const gap =
+    proposal.gapToLpBound === null ? "no bound" : `${(proposal.gapToLpBound * 100).toFixed(2)} % from the bound`;
   return (
     <>
       <div className="grid gap-4 sm:grid-cols-2 lg:grid-cols-4">
         <Stat label="Total walk, proposed" value={km(proposal.totalDistanceM)} />
-        <Stat label="Total walk, today" value={km(proposal.currentDistanceM)} hint="Only households that have a digester today." />
-        <Stat label="Nearest-with-room rule" value={km(proposal.baselineDistanceM)} hint="The obvious plan, for comparison." />
+        <Stat
+          label="Total walk, today"
+          value={km(proposal.currentDistanceM)}
+          hint="Only households that have a digester today."
+        />
+        <Stat
+          label="Nearest-with-room rule"
+          value={km(proposal.baselineDistanceM)}
+          hint="The obvious plan, for comparison."
+        />
         <Stat
           label="Solver"
           value={proposal.provenOptimal ? "Proven best" : gap}
@@ -350,7 +406,11 @@ function ProposalView({ proposal, excluded, onToggleExcluded }: { proposal: Prop
                     }
                   />
                   {d.status === "active" ? (
-                    <Checkbox label={`Exclude ${d.name}`} checked={excluded.includes(d.id)} onChange={() => onToggleExcluded(d.id)} />
+                    <Checkbox
+                      label={`Exclude ${d.name}`}
+                      checked={excluded.includes(d.id)}
+                      onChange={() => onToggleExcluded(d.id)}
+                    />
                   ) : null}
                 </li>
               ))}

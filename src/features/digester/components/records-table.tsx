@@ -18,7 +18,6 @@ import {
   useTable,
   type ColumnDef,
   type RowData,
-  type SortDirection as TableSortDirection,
 } from "@tanstack/react-table";
 import { Download } from "lucide-react";
 import { toCsv, type CsvColumn } from "@shared/csv";
@@ -36,9 +35,10 @@ import {
   THead,
   TR,
   type SelectOption,
-  type SortDirection,
 } from "@/components/ui";
 import { downloadText } from "../utils/format";
+import { ariaSort } from "@/components/data-table/aria-sort";
+import { TablePager } from "@/components/data-table/table-pager";
 
 export const recordFeatures = tableFeatures({
   rowSortingFeature,
@@ -58,10 +58,6 @@ export function recordColumnHelper<T extends RowData>() {
 }
 
 const PAGE_SIZE = 20;
-
-function ariaSort(sorted: false | TableSortDirection): SortDirection {
-  return sorted === "asc" ? "ascending" : sorted === "desc" ? "descending" : "none";
-}
 
 export type RecordsTableProps<T extends RowData> = {
   /** Plural noun for counts and labels, e.g. "readings". */
@@ -202,31 +198,15 @@ export function RecordsTable<T extends RowData>({
           </TBody>
         </Table>
       )}
-      {table.getPageCount() > 1 ? (
-        <nav aria-label={`Pages of ${noun}`} className="flex flex-wrap items-center gap-3">
-          <Button
-            type="button"
-            variant="outline"
-            size="sm"
-            onClick={() => table.previousPage()}
-            disabled={!table.getCanPreviousPage()}
-          >
-            Previous page
-          </Button>
-          <span>
-            Page {pageIndex + 1} of {table.getPageCount()}
-          </span>
-          <Button
-            type="button"
-            variant="outline"
-            size="sm"
-            onClick={() => table.nextPage()}
-            disabled={!table.getCanNextPage()}
-          >
-            Next page
-          </Button>
-        </nav>
-      ) : null}
+      <TablePager
+        noun={noun}
+        pageIndex={pageIndex}
+        pageCount={table.getPageCount()}
+        canPrevious={table.getCanPreviousPage()}
+        canNext={table.getCanNextPage()}
+        onPrevious={() => table.previousPage()}
+        onNext={() => table.nextPage()}
+      />
     </div>
   );
 }

@@ -14,7 +14,6 @@ import {
   sortFn_text,
   tableFeatures,
   useTable,
-  type SortDirection as TableSortDirection,
 } from "@tanstack/react-table";
 import {
   DROP_OFF_STATUSES,
@@ -36,11 +35,12 @@ import {
   TH,
   THead,
   TR,
-  type SortDirection,
 } from "@/components/ui";
 import { ApiError } from "@/lib/api-client";
 import { useCancelDropOff } from "../api/cancel-drop-off";
 import { amountText, dayText, mixLabels, statusTones } from "../utils/labels";
+import { ariaSort } from "@/components/data-table/aria-sort";
+import { TablePager } from "@/components/data-table/table-pager";
 
 const features = tableFeatures({
   rowSortingFeature,
@@ -55,10 +55,6 @@ const features = tableFeatures({
 
 const helper = createColumnHelper<typeof features, DropOff>();
 const PAGE_SIZE = 20;
-
-function ariaSort(sorted: false | TableSortDirection): SortDirection {
-  return sorted === "asc" ? "ascending" : sorted === "desc" ? "descending" : "none";
-}
 
 /** The household's drop-offs and what became of each: sort by day, amount or status; filter by status and digester. */
 export function DropOffHistoryTable({ dropOffs }: { dropOffs: DropOff[] }) {
@@ -248,31 +244,15 @@ export function DropOffHistoryTable({ dropOffs }: { dropOffs: DropOff[] }) {
           </TBody>
         </Table>
       )}
-      {table.getPageCount() > 1 ? (
-        <nav aria-label="Pages of drop-offs" className="flex flex-wrap items-center gap-3">
-          <Button
-            type="button"
-            variant="outline"
-            size="sm"
-            onClick={() => table.previousPage()}
-            disabled={!table.getCanPreviousPage()}
-          >
-            Previous page
-          </Button>
-          <span>
-            Page {pageIndex + 1} of {table.getPageCount()}
-          </span>
-          <Button
-            type="button"
-            variant="outline"
-            size="sm"
-            onClick={() => table.nextPage()}
-            disabled={!table.getCanNextPage()}
-          >
-            Next page
-          </Button>
-        </nav>
-      ) : null}
+      <TablePager
+        noun="drop-offs"
+        pageIndex={pageIndex}
+        pageCount={table.getPageCount()}
+        canPrevious={table.getCanPreviousPage()}
+        canNext={table.getCanNextPage()}
+        onPrevious={() => table.previousPage()}
+        onNext={() => table.nextPage()}
+      />
     </div>
   );
 }

@@ -16,12 +16,27 @@ import {
   sortFn_text,
   tableFeatures,
   useTable,
-  type SortDirection as TableSortDirection,
 } from "@tanstack/react-table";
 import type { Role } from "@shared/schemas/auth";
 import type { PersonRow } from "@shared/schemas/people";
-import { Badge, Button, EmptyState, Field, Input, Select, Table, TableCaption, TBody, TD, TH, THead, TR, type SortDirection } from "@/components/ui";
+import {
+  Badge,
+  Button,
+  EmptyState,
+  Field,
+  Input,
+  Select,
+  Table,
+  TableCaption,
+  TBody,
+  TD,
+  TH,
+  THead,
+  TR,
+} from "@/components/ui";
 import { roleLabels, statusTone, statusLabels } from "../utils/labels";
+import { ariaSort } from "@/components/data-table/aria-sort";
+import { TablePager } from "@/components/data-table/table-pager";
 
 const features = tableFeatures({
   rowSortingFeature,
@@ -32,16 +47,16 @@ const features = tableFeatures({
   filteredRowModel: createFilteredRowModel(),
   paginatedRowModel: createPaginatedRowModel(),
   sortFns: { alphanumeric: sortFn_alphanumeric, text: sortFn_text, datetime: sortFn_datetime },
-  filterFns: { includesString: filterFn_includesString, arrIncludes: filterFn_arrIncludes, equalsString: filterFn_equalsString },
+  filterFns: {
+    includesString: filterFn_includesString,
+    arrIncludes: filterFn_arrIncludes,
+    equalsString: filterFn_equalsString,
+  },
 });
 
 const helper = createColumnHelper<typeof features, PersonRow>();
 
 const PAGE_SIZE = 10;
-
-function ariaSort(sorted: false | TableSortDirection): SortDirection {
-  return sorted === "asc" ? "ascending" : sorted === "desc" ? "descending" : "none";
-}
 
 export type PeopleTableProps = {
   people: PersonRow[];
@@ -70,7 +85,13 @@ export function PeopleTable({ people, digesterNames, onEdit }: PeopleTableProps)
           enableSorting: false,
           enableGlobalFilter: false,
           filterFn: "arrIncludes",
-          cell: (info) => (info.getValue().length ? info.getValue().map((r: Role) => roleLabels[r]).join(", ") : "None"),
+          cell: (info) =>
+            info.getValue().length
+              ? info
+                  .getValue()
+                  .map((r: Role) => roleLabels[r])
+                  .join(", ")
+              : "None",
         }),
         helper.accessor("status", {
           header: "Status",
@@ -83,7 +104,11 @@ export function PeopleTable({ people, digesterNames, onEdit }: PeopleTableProps)
           header: "Looks after",
           enableSorting: false,
           enableGlobalFilter: false,
-          cell: (info) => info.getValue().map((d: number) => digesterNames.get(d) ?? `Digester ${d}`).join(", ") || "—",
+          cell: (info) =>
+            info
+              .getValue()
+              .map((d: number) => digesterNames.get(d) ?? `Digester ${d}`)
+              .join(", ") || "—",
         }),
         helper.accessor("householdName", {
           header: "Household",
@@ -137,7 +162,12 @@ export function PeopleTable({ people, digesterNames, onEdit }: PeopleTableProps)
     <div className="flex flex-col gap-4">
       <div role="search" aria-label="Filter people" className="grid gap-4 sm:grid-cols-3">
         <Field label="Search by name or e-mail">
-          <Input type="search" value={search} onChange={(e) => applyFilters({ search: e.target.value })} autoComplete="off" />
+          <Input
+            type="search"
+            value={search}
+            onChange={(e) => applyFilters({ search: e.target.value })}
+            autoComplete="off"
+          />
         </Field>
         <Field label="Role">
           <Select
@@ -152,7 +182,10 @@ export function PeopleTable({ people, digesterNames, onEdit }: PeopleTableProps)
             value={status}
             onChange={(e) => applyFilters({ status: e.target.value })}
             placeholder="Any status"
-            options={(Object.keys(statusLabels) as PersonRow["status"][]).map((s) => ({ value: s, label: statusLabels[s] }))}
+            options={(Object.keys(statusLabels) as PersonRow["status"][]).map((s) => ({
+              value: s,
+              label: statusLabels[s],
+            }))}
           />
         </Field>
       </div>
@@ -160,7 +193,10 @@ export function PeopleTable({ people, digesterNames, onEdit }: PeopleTableProps)
         {total === 0 ? "No one matches." : `Showing ${first}–${last} of ${total} ${total === 1 ? "person" : "people"}.`}
       </p>
       {total === 0 ? (
-        <EmptyState title="No one matches these filters" description="Clear the search or choose another role or status." />
+        <EmptyState
+          title="No one matches these filters"
+          description="Clear the search or choose another role or status."
+        />
       ) : (
         <Table label="People" aria-describedby={`${id}-count`}>
           <TableCaption className="sr-only">People in the group, their roles and status</TableCaption>
@@ -173,7 +209,9 @@ export function PeopleTable({ people, digesterNames, onEdit }: PeopleTableProps)
                     <TH
                       key={header.id}
                       sort={canSort ? ariaSort(header.column.getIsSorted()) : undefined}
-                      onSort={canSort ? () => header.column.toggleSorting(header.column.getIsSorted() === "asc") : undefined}
+                      onSort={
+                        canSort ? () => header.column.toggleSorting(header.column.getIsSorted() === "asc") : undefined
+                      }
                     >
                       {header.isPlaceholder ? null : <table.FlexRender header={header} />}
                     </TH>
@@ -195,19 +233,15 @@ export function PeopleTable({ people, digesterNames, onEdit }: PeopleTableProps)
           </TBody>
         </Table>
       )}
-      {table.getPageCount() > 1 ? (
-        <nav aria-label="Pages of people" className="flex flex-wrap items-center gap-3">
-          <Button type="button" variant="outline" size="sm" onClick={() => table.previousPage()} disabled={!table.getCanPreviousPage()}>
-            Previous page
-          </Button>
-          <span>
-            Page {pageIndex + 1} of {table.getPageCount()}
-          </span>
-          <Button type="button" variant="outline" size="sm" onClick={() => table.nextPage()} disabled={!table.getCanNextPage()}>
-            Next page
-          </Button>
-        </nav>
-      ) : null}
+      <TablePager
+        noun="people"
+        pageIndex={pageIndex}
+        pageCount={table.getPageCount()}
+        canPrevious={table.getCanPreviousPage()}
+        canNext={table.getCanNextPage()}
+        onPrevious={() => table.previousPage()}
+        onNext={() => table.nextPage()}
+      />
     </div>
   );
 }

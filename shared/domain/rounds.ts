@@ -81,7 +81,21 @@ export interface CollectionRoundsOptions {
   readonly perturbation?: { readonly seed: number; readonly noise: number };
   /** Ruin-and-recreate iterations after construction; default {@link defaultImprovementIterations}. */
   readonly improvementIterations?: number;
+  /**
+   * Longest ride from a round's last stop to the digester it ends at,
+   * metres; a digester further away is not used. Default
+   * {@link DEFAULT_MAX_END_LEG_M}.
+   */
+  readonly maxEndLegM?: number;
 }
+
+/**
+ * Default cap on the ride from the last stop to the digester, metres
+ * [judgement: with a loaded cargo bike, more than about 5 km after the last
+ * stop is longer than a whole neighbourhood round; such a collection is
+ * better moved to another day than ridden across town].
+ */
+export const DEFAULT_MAX_END_LEG_M = 5000;
 
 /** One stop of a round, in riding order. */
 export interface RoundStop {
@@ -106,7 +120,12 @@ export interface CollectionRound {
 
 /** Why a stop could not be planned. */
 export type UnplacedStopReason =
-  "noLocation" | "invalidLoad" | "heavierThanAnyBike" | "noDigesterWithRoom" | "noVolunteer";
+  | "noLocation"
+  | "invalidLoad"
+  | "heavierThanAnyBike"
+  | "noDigesterWithRoom"
+  | "noDigesterWithinReach"
+  | "noVolunteer";
 
 /** A stop left out of every round, with the reason and a sentence for the coordinator. */
 export interface UnplacedStop {
@@ -158,13 +177,19 @@ interface Network {
   readonly bikes: readonly number[];
   readonly rooms: readonly number[];
   readonly maxBikeKg: number;
+  /** The cap on the last leg in force, metres. */
+  readonly maxEndLegM: number;
   readonly unplaced: UnplacedStop[];
   readonly messages: string[];
 }
 
 const pos = (s: CollectionStop): LatLng => ({ lat: s.lat!, lng: s.lng! });
 
-function prepareNetwork(input: CollectionRoundsInput): Network {
+function prepareNetwork(input: CollectionRoundsInput, maxEndLegOption?: number): Network {
+  const maxEndLegM =
+    maxEndLegOption !== undefined && Number.isFinite(maxEndLegOption) && maxEndLegOption > 0
+      ? maxEndLegOption
+      : DEFAULT_MAX_END_LEG_M;
   const messages: string[] = [];
   const unplaced: UnplacedStop[] = [];
   const volunteers = input.volunteers.filter((v) => {
@@ -211,6 +236,12 @@ function prepareNetwork(input: CollectionRoundsInput): Network {
         "noDigesterWithRoom",
         `No digester has room for the ${round1(s.loadKg)} kg collected from ${s.householdId} on this date; collect it another day.`,
       );
+    else if (!digesters.some((d, e) => rooms[e]! + KG_EPS >= s.loadKg && haversineM(pos(s), d) <= maxEndLegM))
+      drop(
+        s,
+        "noDigesterWithinReach",
+        `No digester with room for the ${round1(s.loadKg)} kg from ${s.householdId} is within ${round1(maxEndLegM / 1000)} km; collect it another day or ask a steward further away.`,
+      );
     else stopIdx.push(i);
   });
   const n = stopIdx.length;
@@ -222,9 +253,28 @@ function prepareNetwork(input: CollectionRoundsInput): Network {
   volunteers.forEach((v, k) => pts.forEach((p, a) => (dVS[k * n + a] = haversineM(v, p))));
   const E = digesters.length;
   const dSE = new Float64Array(n * E);
-  pts.forEach((p, a) => digesters.forEach((d, e) => (dSE[a * E + e] = haversineM(p, d))));
+  // A digester beyond the cap is unreachable from that stop: every step below treats Infinity as "no end here".
+  pts.forEach((p, a) =>
+    digesters.forEach((d, e) => {
+      const m = haversineM(p, d);
+      dSE[a * E + e] = m <= maxEndLegM ? m : Infinity;
+    }),
+  );
   const load = Float64Array.from(stopIdx, (i) => input.stops[i]!.loadKg);
-  return { input: cleanInput, stopIdx, load, dSS, dVS, dSE, bikes, rooms, maxBikeKg, unplaced, messages };
+  return {
+    input: cleanInput,
+    stopIdx,
+    load,
+    dSS,
+    dVS,
+    dSE,
+    bikes,
+    rooms,
+    maxBikeKg,
+    maxEndLegM,
+    unplaced,
+    messages,
+  };
 }
 
 const round1 = (x: number) => Math.round(x * 10) / 10;
@@ -754,7 +804,7 @@ function buildPlan(net: Network, ended: Ended[], dropped: number[]): CollectionP
       householdId: s.householdId,
       loadKg: kg(s.loadKg),
       reason: "noDigesterWithRoom",
-      message: `The digesters' room on this date is used by other rounds; the ${round1(s.loadKg)} kg from ${s.householdId} should be collected another day.`,
+      message: `The room of the digesters within ${round1(net.maxEndLegM / 1000)} km is used by other rounds on this date; the ${round1(s.loadKg)} kg from ${s.householdId} should be collected another day.`,
     });
   }
   const delivered = new Float64Array(E);
@@ -806,7 +856,7 @@ export function planCollectionRounds(
   input: CollectionRoundsInput,
   options: CollectionRoundsOptions = {},
 ): CollectionPlan {
-  const net = prepareNetwork(input);
+  const net = prepareNetwork(input, options.maxEndLegM);
   if (net.stopIdx.length === 0) return buildPlan(net, [], []);
   const shapes = options.savingsShapes ?? [1, 0.6, 1.4];
   const rng = options.perturbation ? mulberry32(options.perturbation.seed) : null;
@@ -858,8 +908,11 @@ export const EXACT_ROUNDS_MAX_STOPS = 9;
  * {@link planCollectionRounds}. Returns null when more than
  * {@link EXACT_ROUNDS_MAX_STOPS} stops remain or no plan serves them all.
  */
-export function exactCollectionRounds(input: CollectionRoundsInput): CollectionPlan | null {
-  const net = prepareNetwork(input);
+export function exactCollectionRounds(
+  input: CollectionRoundsInput,
+  options: Pick<CollectionRoundsOptions, "maxEndLegM"> = {},
+): CollectionPlan | null {
+  const net = prepareNetwork(input, options.maxEndLegM);
   const n = net.stopIdx.length;
   if (n > EXACT_ROUNDS_MAX_STOPS) return null;
   if (n === 0) return buildPlan(net, [], []);
@@ -1042,8 +1095,11 @@ function assignmentMin(cost: Float64Array, size: number): number {
  * volunteer whose bike carries the stop and the nearest digester with room
  * for it, so every real plan is at least this long.
  */
-export function collectionRoundsLowerBoundM(input: CollectionRoundsInput): Metres {
-  const net = prepareNetwork(input);
+export function collectionRoundsLowerBoundM(
+  input: CollectionRoundsInput,
+  options: Pick<CollectionRoundsOptions, "maxEndLegM"> = {},
+): Metres {
+  const net = prepareNetwork(input, options.maxEndLegM);
   const n = net.stopIdx.length;
   if (n === 0) return metres(0);
   const total = net.load.reduce((s, x) => s + x, 0);

@@ -3,6 +3,7 @@ import fc from "fast-check";
 import {
   type CollectionPlan,
   type CollectionRoundsInput,
+  DEFAULT_MAX_END_LEG_M,
   EXACT_ROUNDS_MAX_STOPS,
   collectionRoundsLowerBoundM,
   exactCollectionRounds,
@@ -19,7 +20,7 @@ const lineStops = (loadKg: number) =>
   [100, 200, 300].map((m, i) => ({ householdId: `s${i + 1}`, ...onLine(m), loadKg }));
 
 /** Invariants every plan must satisfy, recomputed from the input. */
-function checkPlan(input: CollectionRoundsInput, plan: CollectionPlan) {
+function checkPlan(input: CollectionRoundsInput, plan: CollectionPlan, maxEndLegM = DEFAULT_MAX_END_LEG_M) {
   const bike = new Map(input.volunteers.map((v) => [v.id, v.bikeLoadKg]));
   const room = new Map(input.digesters.map((d) => [d.id, d.roomKg]));
   const delivered = new Map<string, number>();
@@ -31,6 +32,9 @@ function checkPlan(input: CollectionRoundsInput, plan: CollectionPlan) {
     expect(load).toBeLessThanOrEqual(bike.get(r.volunteerId)! + 1e-9);
     delivered.set(r.endDigesterId, (delivered.get(r.endDigesterId) ?? 0) + load);
     expect(r.lengthM).toBeCloseTo(r.stops.reduce((s, x) => s + x.legM, 0) + r.endLegM, 6);
+    expect(r.endLegM).toBeLessThanOrEqual(maxEndLegM + 1e-6);
+    const end = input.digesters.find((d) => d.id === r.endDigesterId)!;
+    expect(r.endLegM).toBeCloseTo(haversineM(r.stops.at(-1)!, end), 6);
     const v = input.volunteers.find((x) => x.id === r.volunteerId)!;
     expect(r.stops[0]!.legM).toBeCloseTo(haversineM(v, r.stops[0]!), 6);
     for (const s of r.stops) seen.set(s.householdId, (seen.get(s.householdId) ?? 0) + 1);
@@ -121,6 +125,45 @@ describe("collection rounds: hand-solved instances", () => {
     expect(plan.rounds).toHaveLength(2);
     expect(plan.unplacedStops.map((u) => u.reason)).toEqual(["noDigesterWithRoom", "noDigesterWithRoom"]);
     expect(plan.digesterLoads).toEqual([{ digesterId: "D", loadKg: 8, roomKg: 8 }]);
+    checkPlan(input, plan);
+  });
+
+  it("when the only digester with room is beyond the last-leg cap, then the stop is reported, and a wider cap plans it", () => {
+    // Stop at 100 m, digester at 6,100 m: the last leg is 6,000 m, over the 5,000 m default [derived].
+    const input: CollectionRoundsInput = {
+      stops: [{ householdId: "s", ...onLine(100), loadKg: 2 }],
+      volunteers: [{ id: "v", ...onLine(0), bikeLoadKg: 10 }],
+      digesters: [{ id: "far", ...onLine(6100), roomKg: 100 }],
+    };
+    const plan = planCollectionRounds(input);
+    expect(plan.rounds).toEqual([]);
+    expect(plan.unplacedStops.map((u) => u.reason)).toEqual(["noDigesterWithinReach"]);
+    expect(plan.unplacedStops[0]!.message).toMatch(/within 5 km/);
+    checkPlan(input, plan);
+    const wider = planCollectionRounds(input, { maxEndLegM: 7000 });
+    expect(wider.rounds.map((r) => r.endDigesterId)).toEqual(["far"]);
+    expect(wider.totalLengthM).toBeCloseTo(6100, 3);
+    checkPlan(input, wider, 7000);
+    expect(exactCollectionRounds(input, { maxEndLegM: 7000 })!.totalLengthM).toBeCloseTo(6100, 3);
+    expect(collectionRoundsLowerBoundM(input, { maxEndLegM: 7000 })).toBeLessThanOrEqual(6100 + 1e-6);
+  });
+
+  it("when the near digester fills and the one with room is beyond the cap, then the rest waits instead of riding across town", () => {
+    // Three 2 kg stops at 100–300 m; "near" (400 m) takes 4 kg, "far" (8 km) has room but is beyond 5 km.
+    const input: CollectionRoundsInput = {
+      stops: lineStops(2),
+      volunteers: [{ id: "v", ...onLine(0), bikeLoadKg: 10 }],
+      digesters: [
+        { id: "near", ...onLine(400), roomKg: 4 },
+        { id: "far", ...onLine(8000), roomKg: 100 },
+      ],
+    };
+    const plan = planCollectionRounds(input);
+    expect(plan.rounds.every((r) => r.endDigesterId === "near")).toBe(true);
+    expect(plan.digesterLoads.find((d) => d.digesterId === "near")!.loadKg).toBe(4);
+    expect(plan.unplacedStops).toHaveLength(1);
+    expect(plan.unplacedStops[0]!.reason).toBe("noDigesterWithRoom");
+    expect(plan.unplacedStops[0]!.message).toMatch(/within 5 km/);
     checkPlan(input, plan);
   });
 

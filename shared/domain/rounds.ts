@@ -120,12 +120,7 @@ export interface CollectionRound {
 
 /** Why a stop could not be planned. */
 export type UnplacedStopReason =
-  | "noLocation"
-  | "invalidLoad"
-  | "heavierThanAnyBike"
-  | "noDigesterWithRoom"
-  | "noDigesterWithinReach"
-  | "noVolunteer";
+  "noLocation" | "invalidLoad" | "heavierThanAnyBike" | "noDigesterWithRoom" | "noDigesterWithinReach" | "noVolunteer";
 
 /** A stop left out of every round, with the reason and a sentence for the coordinator. */
 export interface UnplacedStop {

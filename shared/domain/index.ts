@@ -11,3 +11,8 @@ export * from "./gas";
 export * from "./digestate";
 export * from "./calculators";
 export * from "./drop-offs";
+export * from "./weekly-room";
+export * from "./geo";
+export * from "./assignment";
+export * from "./rounds";
+export * from "./safety";

@@ -8,7 +8,7 @@
  * date = that day of the weekly-room projection (shared/domain/weekly-room.ts; day 6 beyond a week).
  */
 import { performance } from "node:perf_hooks";
-import { QueryTypes, type Transaction } from "sequelize";
+import type { Transaction } from "sequelize";
 import { dropOffQuantities } from "../../../shared/domain/drop-offs";
 import { DEFAULT_BUCKET_LITRES } from "../../../shared/domain/feed-budget";
 import { haversineM, isValidLatLng } from "../../../shared/domain/geo";
@@ -17,7 +17,6 @@ import { freshKgFromKgVs } from "../../../shared/domain/scraps";
 import { projectWeeklyRoom } from "../../../shared/domain/weekly-room";
 import {
   COLLECTION_BUCKET_KG,
-  type CollectionRequestStatus,
   type PlanResult,
   type RoundSheet,
   type RoundSummary,
@@ -27,9 +26,7 @@ import { AppError, badRequest, conflict, forbidden, notFound } from "../../lib/a
 import { daysBetween, localDate } from "../../lib/clock";
 import type { Caller } from "../../middleware/handle";
 import { type DigesterToday, loadDigestersToday } from "../digesters/digester-state.service";
-
-const q = <T extends object>(sql: string, bind: unknown[], transaction?: Transaction) =>
-  sequelize().query<T>(sql, { bind, type: QueryTypes.SELECT, transaction });
+import * as repo from "./rounds.repository";
 
 /** Room for scraps at a digester on `forDate`, fresh kg (see the module comment). */
 export function roomOnDateKg(state: DigesterToday, forDate: string): number {
@@ -45,15 +42,6 @@ export function roomOnDateKg(state: DigesterToday, forDate: string): number {
   return freshKgFromKgVs(projection.dailyKgVs[Math.min(6, k)] ?? 0);
 }
 
-const summaryColumns = `
-  r.id, to_char(r.for_date, 'YYYY-MM-DD') AS "forDate", r.volunteer_id AS "volunteerId", p.name AS "volunteerName",
-  r.end_digester_id AS "endDigesterId", d.name AS "endDigesterName", r.total_m::float8 AS "totalM",
-  r.load_kg::float8 AS "loadKg", r.status,
-  (SELECT count(*)::int FROM collection_round_stops s WHERE s.round_id = r.id) AS "stopCount",
-  (SELECT count(*)::int FROM collection_round_stops s JOIN collection_requests c ON c.id = s.request_id
-    WHERE s.round_id = r.id AND c.status = 'collected') AS "collectedCount"`;
-const summaryFrom = `FROM collection_rounds r JOIN people p ON p.id = r.volunteer_id JOIN digesters d ON d.id = r.end_digester_id`;
-
 const UNPLACED_WORDS: Record<string, string> = {
   noLocation: "the household has no location on the map; add one, or ask them to bring the buckets.",
   invalidLoad: "the request has no valid number of buckets.",
@@ -67,36 +55,14 @@ export async function planRounds(forDate: string, now = new Date()): Promise<Pla
   const today = localDate(now);
   if (forDate < today) throw badRequest("Plan today or a later day.", { forDate: "Today or later." });
   return sequelize().transaction(async (transaction) => {
-    await sequelize().query(`SELECT pg_advisory_xact_lock(hashtext('hearthloop.rounds:' || $1))`, { bind: [forDate], transaction });
-    const old = await q<{ id: number }>(
-      `SELECT r.id FROM collection_rounds r WHERE r.for_date = $1 AND r.status = 'planned'
-         AND NOT EXISTS (SELECT 1 FROM collection_round_stops s WHERE s.round_id = r.id AND s.drop_off_id IS NOT NULL)`,
-      [forDate],
-      transaction,
-    );
-    const oldIds = old.map((r) => r.id);
+    await repo.lockDate(transaction, forDate);
+    const oldIds = await repo.replaceableRoundIds(forDate, transaction);
     if (oldIds.length > 0) {
-      await sequelize().query(
-        `UPDATE collection_requests SET status = 'open', updated_at = now()
-          WHERE status = 'planned' AND id IN (SELECT request_id FROM collection_round_stops WHERE round_id = ANY($1::int[]))`,
-        { bind: [oldIds], transaction },
-      );
-      await sequelize().query(`DELETE FROM collection_rounds WHERE id = ANY($1::int[])`, { bind: [oldIds], transaction });
+      await repo.reopenRequestsOf(transaction, oldIds);
+      await repo.deleteRounds(transaction, oldIds);
     }
-    const requests = await q<{ id: number; householdName: string; lat: number | null; lng: number | null; bucketCount: number }>(
-      `SELECT r.id, h.name AS "householdName", h.lat, h.lng, r.bucket_count AS "bucketCount"
-         FROM collection_requests r JOIN households h ON h.id = r.household_id
-        WHERE r.for_date = $1 AND r.status = 'open' ORDER BY r.id FOR UPDATE OF r`,
-      [forDate],
-      transaction,
-    );
-    const volunteers = await q<{ id: number; name: string; lat: number; lng: number; bikeLoadKg: number }>(
-      `SELECT id, name, start_lat AS lat, start_lng AS lng, bike_load_kg::float8 AS "bikeLoadKg" FROM people
-        WHERE is_volunteer AND status = 'active' AND bike_load_kg IS NOT NULL AND start_lat IS NOT NULL AND start_lng IS NOT NULL
-        ORDER BY id`,
-      [],
-      transaction,
-    );
+    const requests = await repo.lockOpenRequests(transaction, forDate);
+    const volunteers = await repo.availableVolunteers(transaction);
     const states = await loadDigestersToday(null, { now, transaction });
     const digesters = states
       .map((s) => ({ id: String(s.digester.id), lat: s.digester.lat, lng: s.digester.lng, roomKg: roomOnDateKg(s, forDate) }))
@@ -116,24 +82,20 @@ export async function planRounds(forDate: string, now = new Date()): Promise<Pla
     for (const m of plan.messages) messages.push(m);
 
     for (const round of plan.rounds) {
-      const [row] = await q<{ id: number }>(
-        `INSERT INTO collection_rounds (for_date, volunteer_id, end_digester_id, total_m, load_kg) VALUES ($1, $2, $3, $4, $5) RETURNING id`,
-        [forDate, Number(round.volunteerId), Number(round.endDigesterId), round.lengthM, round.loadKg],
-        transaction,
-      );
+      const roundId = await repo.insertRound(transaction, {
+        forDate,
+        volunteerId: Number(round.volunteerId),
+        endDigesterId: Number(round.endDigesterId),
+        totalM: round.lengthM,
+        loadKg: round.loadKg,
+      });
       for (const [i, stop] of round.stops.entries()) {
-        await sequelize().query(`INSERT INTO collection_round_stops (round_id, request_id, seq) VALUES ($1, $2, $3)`, {
-          bind: [row!.id, Number(stop.householdId), i + 1],
-          transaction,
-        });
+        await repo.insertStop(transaction, roundId, Number(stop.householdId), i + 1);
       }
-      await sequelize().query(
-        `UPDATE collection_requests SET status = 'planned', updated_at = now() WHERE id = ANY($1::int[])`,
-        { bind: [round.stops.map((s) => Number(s.householdId))], transaction },
-      );
+      await repo.markRequestsPlanned(transaction, round.stops.map((s) => Number(s.householdId)));
     }
     const names = new Map(requests.map((r) => [String(r.id), r.householdName]));
-    const rounds = await q<RoundSummary>(`SELECT ${summaryColumns} ${summaryFrom} WHERE r.for_date = $1 ORDER BY r.id`, [forDate], transaction);
+    const rounds = await repo.roundSummariesOn(forDate, transaction);
     return {
       forDate,
       rounds,
@@ -156,32 +118,15 @@ async function isVolunteerOnly(caller: Caller): Promise<boolean> {
 
 /** Rounds of a date (or all upcoming): coordinators see all, anyone else their own. */
 export async function listRounds(caller: Caller, date: string | undefined, now = new Date()): Promise<{ rounds: RoundSummary[] }> {
-  const bind: unknown[] = [];
-  const where: string[] = [];
-  if (date) {
-    bind.push(date);
-    where.push(`r.for_date = $${bind.length}`);
-  } else {
-    bind.push(localDate(now));
-    where.push(`r.for_date >= $${bind.length}`);
-  }
-  if (await isVolunteerOnly(caller)) {
-    bind.push(caller.id);
-    where.push(`r.volunteer_id = $${bind.length}`);
-  }
-  const rounds = await q<RoundSummary>(
-    `SELECT ${summaryColumns} ${summaryFrom} WHERE ${where.join(" AND ")} ORDER BY r.for_date, r.id LIMIT 200`,
-    bind,
-  );
+  const rounds = await repo.listRoundSummaries({
+    ...(date ? { forDate: date } : { fromDate: localDate(now) }),
+    volunteerId: (await isVolunteerOnly(caller)) ? caller.id : undefined,
+  });
   return { rounds };
 }
 
 async function loadRound(caller: Caller, id: number, transaction?: Transaction, lock = false) {
-  const [round] = await q<RoundSummary & { startLat: number | null; startLng: number | null }>(
-    `SELECT ${summaryColumns}, p.start_lat AS "startLat", p.start_lng AS "startLng" ${summaryFrom} WHERE r.id = $1 ${lock ? "FOR UPDATE OF r" : ""}`,
-    [id],
-    transaction,
-  );
+  const round = await repo.findRound(id, { transaction, lock });
   if (!round) throw notFound("The round");
   if (!caller.roles.includes("coordinator") && round.volunteerId !== caller.id) throw forbidden("This is another volunteer's round.");
   return round;
@@ -190,30 +135,8 @@ async function loadRound(caller: Caller, id: number, transaction?: Transaction, 
 /** The round sheet: stops in order with address, buckets and legs, start and end. */
 export async function roundSheet(caller: Caller, id: number, transaction?: Transaction): Promise<RoundSheet> {
   const round = await loadRound(caller, id, transaction);
-  const [end] = await q<{ id: number; name: string; siteDescription: string; lat: number; lng: number }>(
-    `SELECT id, name, site_description AS "siteDescription", lat, lng FROM digesters WHERE id = $1`,
-    [round.endDigesterId],
-    transaction,
-  );
-  const stops = await q<{
-    seq: number;
-    requestId: number;
-    householdId: number;
-    householdName: string;
-    addressText: string;
-    lat: number;
-    lng: number;
-    bucketCount: number;
-    status: CollectionRequestStatus;
-    dropOffId: number | null;
-  }>(
-    `SELECT s.seq, s.request_id AS "requestId", h.id AS "householdId", h.name AS "householdName", h.address_text AS "addressText",
-            h.lat, h.lng, c.bucket_count AS "bucketCount", c.status, s.drop_off_id AS "dropOffId"
-       FROM collection_round_stops s JOIN collection_requests c ON c.id = s.request_id JOIN households h ON h.id = c.household_id
-      WHERE s.round_id = $1 ORDER BY s.seq`,
-    [id],
-    transaction,
-  );
+  const end = await repo.findEndDigester(round.endDigesterId, transaction);
+  const stops = await repo.roundStops(id, transaction);
   const start = isValidLatLng(round.startLat, round.startLng) ? { lat: round.startLat!, lng: round.startLng! } : null;
   let previous = start;
   const withLegs = stops.map((s) => {
@@ -272,14 +195,7 @@ export async function markCollected(caller: Caller, roundId: number, requestId: 
   return sequelize().transaction(async (transaction) => {
     const round = await loadRound(caller, roundId, transaction, true);
     if (round.status === "cancelled") throw conflict("This round was cancelled.");
-    const [stop] = await q<{ status: string; householdId: number; bucketCount: number; kgPerLitre: number }>(
-      `SELECT c.status, c.household_id AS "householdId", c.bucket_count AS "bucketCount", d.bucket_kg_per_litre::float8 AS "kgPerLitre"
-         FROM collection_round_stops s JOIN collection_requests c ON c.id = s.request_id
-         JOIN collection_rounds r ON r.id = s.round_id JOIN digesters d ON d.id = r.end_digester_id
-        WHERE s.round_id = $1 AND s.request_id = $2 FOR UPDATE OF c`,
-      [roundId, requestId],
-      transaction,
-    );
+    const stop = await repo.lockStop(transaction, roundId, requestId);
     if (!stop) throw notFound("That stop on this round");
     if (stop.status === "collected") throw conflict("This stop is already marked collected.");
     if (stop.status !== "planned") throw new AppError(409, "not_collectable", `This request is ${stop.status}; it cannot be collected.`);
@@ -289,37 +205,21 @@ export async function markCollected(caller: Caller, roundId: number, requestId: 
       kgPerLitre: stop.kgPerLitre,
       mix: "mixed",
     });
-    const [dropOff] = await q<{ id: number }>(
-      `INSERT INTO drop_offs (household_id, digester_id, person_id, for_date, bucket_count, bucket_litres, mass_source, fresh_kg, kg_vs, mix, status, note)
-       VALUES ($1, $2, $3, $4, $5, $6, $7, $8, $9, 'mixed', 'pending', $10) RETURNING id`,
-      [
-        stop.householdId,
-        round.endDigesterId,
-        caller.id,
-        round.forDate,
-        stop.bucketCount,
-        DEFAULT_BUCKET_LITRES,
-        quantities.massSource,
-        quantities.freshKg,
-        quantities.kgVs,
-        `Collected by cargo bike on round ${roundId}.`,
-      ],
-      transaction,
-    );
-    await sequelize().query(`UPDATE collection_round_stops SET drop_off_id = $3 WHERE round_id = $1 AND request_id = $2`, {
-      bind: [roundId, requestId, dropOff!.id],
-      transaction,
+    const dropOffId = await repo.insertCollectedDropOff(transaction, {
+      householdId: stop.householdId,
+      digesterId: round.endDigesterId,
+      personId: caller.id,
+      forDate: round.forDate,
+      bucketCount: stop.bucketCount,
+      bucketLitres: DEFAULT_BUCKET_LITRES,
+      massSource: quantities.massSource,
+      freshKg: quantities.freshKg,
+      kgVs: quantities.kgVs,
+      note: `Collected by cargo bike on round ${roundId}.`,
     });
-    await sequelize().query(`UPDATE collection_requests SET status = 'collected', updated_at = now() WHERE id = $1`, {
-      bind: [requestId],
-      transaction,
-    });
-    await sequelize().query(
-      `UPDATE collection_rounds r SET status = 'done', updated_at = now() WHERE r.id = $1 AND NOT EXISTS (
-         SELECT 1 FROM collection_round_stops s JOIN collection_requests c ON c.id = s.request_id
-          WHERE s.round_id = r.id AND c.status = 'planned')`,
-      { bind: [roundId], transaction },
-    );
+    await repo.setStopDropOff(transaction, roundId, requestId, dropOffId);
+    await repo.markRequestCollected(transaction, requestId);
+    await repo.finishRoundIfDone(transaction, roundId);
     return roundSheet(caller, roundId, transaction);
   });
 }

@@ -1,0 +1,322 @@
+/**
+ * Collection rounds' SQL: one statement per function, plain objects out. The service owns the
+ * transactions and the order of the locks (the date's advisory lock, then the open requests; the
+ * round row, then its stop's request).
+ */
+import { QueryTypes, type Transaction } from "sequelize";
+import type { MassMethod } from "../../../shared/domain/scraps";
+import type { CollectionRequestStatus, RoundSummary } from "../../../shared/schemas/collections";
+import { sequelize } from "../../db/sequelize";
+
+const q = <T extends object>(sql: string, bind: unknown[], transaction?: Transaction) =>
+  sequelize().query<T>(sql, { bind, type: QueryTypes.SELECT, transaction });
+
+// NUMERIC columns are cast to float8 (the driver returns NUMERIC as strings); dates as text.
+const summaryColumns = `
+  r.id, to_char(r.for_date, 'YYYY-MM-DD') AS "forDate", r.volunteer_id AS "volunteerId", p.name AS "volunteerName",
+  r.end_digester_id AS "endDigesterId", d.name AS "endDigesterName", r.total_m::float8 AS "totalM",
+  r.load_kg::float8 AS "loadKg", r.status,
+  (SELECT count(*)::int FROM collection_round_stops s WHERE s.round_id = r.id) AS "stopCount",
+  (SELECT count(*)::int FROM collection_round_stops s JOIN collection_requests c ON c.id = s.request_id
+    WHERE s.round_id = r.id AND c.status = 'collected') AS "collectedCount"`;
+const summaryFrom = `FROM collection_rounds r JOIN people p ON p.id = r.volunteer_id JOIN digesters d ON d.id = r.end_digester_id`;
+
+/** Most rounds one list returns. */
+export const ROUND_LIST_LIMIT = 200;
+
+/** Serialises planning of one date (YYYY-MM-DD) across processes until the transaction ends. */
+export async function lockDate(transaction: Transaction, forDate: string): Promise<void> {
+  await sequelize().query(`SELECT pg_advisory_xact_lock(hashtext('hearthloop.rounds:' || $1))`, {
+    bind: [forDate],
+    transaction,
+  });
+}
+
+/** Ids of the date's planned rounds with nothing collected yet (a re-plan replaces them). */
+export async function replaceableRoundIds(forDate: string, transaction?: Transaction): Promise<number[]> {
+  const rows = await q<{ id: number }>(
+    `SELECT r.id FROM collection_rounds r WHERE r.for_date = $1 AND r.status = 'planned'
+       AND NOT EXISTS (SELECT 1 FROM collection_round_stops s WHERE s.round_id = r.id AND s.drop_off_id IS NOT NULL)`,
+    [forDate],
+    transaction,
+  );
+  return rows.map((r) => r.id);
+}
+
+/** Puts the planned requests on these rounds back to open. */
+export async function reopenRequestsOf(transaction: Transaction, roundIds: number[]): Promise<void> {
+  await sequelize().query(
+    `UPDATE collection_requests SET status = 'open', updated_at = now()
+      WHERE status = 'planned' AND id IN (SELECT request_id FROM collection_round_stops WHERE round_id = ANY($1::int[]))`,
+    { bind: [roundIds], transaction },
+  );
+}
+
+/** Deletes rounds (their stops go with them). */
+export async function deleteRounds(transaction: Transaction, roundIds: number[]): Promise<void> {
+  await sequelize().query(`DELETE FROM collection_rounds WHERE id = ANY($1::int[])`, { bind: [roundIds], transaction });
+}
+
+export interface OpenRequest {
+  id: number;
+  householdName: string;
+  lat: number | null;
+  lng: number | null;
+  bucketCount: number;
+}
+
+/** The date's open requests with their household's place, by id; locks the request rows. */
+export function lockOpenRequests(transaction: Transaction, forDate: string): Promise<OpenRequest[]> {
+  return q<OpenRequest>(
+    `SELECT r.id, h.name AS "householdName", h.lat, h.lng, r.bucket_count AS "bucketCount"
+       FROM collection_requests r JOIN households h ON h.id = r.household_id
+      WHERE r.for_date = $1 AND r.status = 'open' ORDER BY r.id FOR UPDATE OF r`,
+    [forDate],
+    transaction,
+  );
+}
+
+export interface Volunteer {
+  id: number;
+  name: string;
+  lat: number;
+  lng: number;
+  /** Most the volunteer's cargo bike carries, kg. */
+  bikeLoadKg: number;
+}
+
+/** Active volunteers with a bike load and a start point, by id. */
+export function availableVolunteers(transaction?: Transaction): Promise<Volunteer[]> {
+  return q<Volunteer>(
+    `SELECT id, name, start_lat AS lat, start_lng AS lng, bike_load_kg::float8 AS "bikeLoadKg" FROM people
+      WHERE is_volunteer AND status = 'active' AND bike_load_kg IS NOT NULL AND start_lat IS NOT NULL AND start_lng IS NOT NULL
+      ORDER BY id`,
+    [],
+    transaction,
+  );
+}
+
+/** Inserts a planned round; returns its id. */
+export async function insertRound(
+  transaction: Transaction,
+  round: { forDate: string; volunteerId: number; endDigesterId: number; totalM: number; loadKg: number },
+): Promise<number> {
+  const [row] = await q<{ id: number }>(
+    `INSERT INTO collection_rounds (for_date, volunteer_id, end_digester_id, total_m, load_kg) VALUES ($1, $2, $3, $4, $5) RETURNING id`,
+    [round.forDate, round.volunteerId, round.endDigesterId, round.totalM, round.loadKg],
+    transaction,
+  );
+  return row!.id;
+}
+
+/** Adds a request to a round as its `seq`-th stop (from 1). */
+export async function insertStop(
+  transaction: Transaction,
+  roundId: number,
+  requestId: number,
+  seq: number,
+): Promise<void> {
+  await sequelize().query(`INSERT INTO collection_round_stops (round_id, request_id, seq) VALUES ($1, $2, $3)`, {
+    bind: [roundId, requestId, seq],
+    transaction,
+  });
+}
+
+export async function markRequestsPlanned(transaction: Transaction, requestIds: number[]): Promise<void> {
+  await sequelize().query(
+    `UPDATE collection_requests SET status = 'planned', updated_at = now() WHERE id = ANY($1::int[])`,
+    {
+      bind: [requestIds],
+      transaction,
+    },
+  );
+}
+
+/** Every round of a date, by id. */
+export function roundSummariesOn(forDate: string, transaction?: Transaction): Promise<RoundSummary[]> {
+  return q<RoundSummary>(
+    `SELECT ${summaryColumns} ${summaryFrom} WHERE r.for_date = $1 ORDER BY r.id`,
+    [forDate],
+    transaction,
+  );
+}
+
+/** Rounds on one date and/or from one date on (YYYY-MM-DD), optionally of one volunteer, by date and id. */
+export function listRoundSummaries(filter: {
+  forDate?: string | undefined;
+  fromDate?: string | undefined;
+  volunteerId?: number | undefined;
+}): Promise<RoundSummary[]> {
+  const bind: unknown[] = [];
+  const where: string[] = [];
+  if (filter.forDate !== undefined) {
+    bind.push(filter.forDate);
+    where.push(`r.for_date = $${bind.length}`);
+  }
+  if (filter.fromDate !== undefined) {
+    bind.push(filter.fromDate);
+    where.push(`r.for_date >= $${bind.length}`);
+  }
+  if (filter.volunteerId !== undefined) {
+    bind.push(filter.volunteerId);
+    where.push(`r.volunteer_id = $${bind.length}`);
+  }
+  return q<RoundSummary>(
+    `SELECT ${summaryColumns} ${summaryFrom} ${where.length ? `WHERE ${where.join(" AND ")}` : ""} ORDER BY r.for_date, r.id LIMIT ${ROUND_LIST_LIMIT}`,
+    bind,
+  );
+}
+
+export interface RoundRow extends RoundSummary {
+  /** The volunteer's start point (null when not set). */
+  startLat: number | null;
+  startLng: number | null;
+}
+
+/** One round with its volunteer's start point; `lock` locks the round row until the transaction ends. */
+export async function findRound(
+  id: number,
+  options: { transaction?: Transaction | undefined; lock?: boolean } = {},
+): Promise<RoundRow | undefined> {
+  const [round] = await q<RoundRow>(
+    `SELECT ${summaryColumns}, p.start_lat AS "startLat", p.start_lng AS "startLng" ${summaryFrom} WHERE r.id = $1 ${options.lock ? "FOR UPDATE OF r" : ""}`,
+    [id],
+    options.transaction,
+  );
+  return round;
+}
+
+export interface EndDigester {
+  id: number;
+  name: string;
+  siteDescription: string;
+  lat: number;
+  lng: number;
+}
+
+export async function findEndDigester(id: number, transaction?: Transaction): Promise<EndDigester | undefined> {
+  const [end] = await q<EndDigester>(
+    `SELECT id, name, site_description AS "siteDescription", lat, lng FROM digesters WHERE id = $1`,
+    [id],
+    transaction,
+  );
+  return end;
+}
+
+export interface StopRow {
+  seq: number;
+  requestId: number;
+  householdId: number;
+  householdName: string;
+  addressText: string;
+  lat: number;
+  lng: number;
+  bucketCount: number;
+  status: CollectionRequestStatus;
+  dropOffId: number | null;
+}
+
+/** A round's stops in order, with their household and request. */
+export function roundStops(roundId: number, transaction?: Transaction): Promise<StopRow[]> {
+  return q<StopRow>(
+    `SELECT s.seq, s.request_id AS "requestId", h.id AS "householdId", h.name AS "householdName", h.address_text AS "addressText",
+            h.lat, h.lng, c.bucket_count AS "bucketCount", c.status, s.drop_off_id AS "dropOffId"
+       FROM collection_round_stops s JOIN collection_requests c ON c.id = s.request_id JOIN households h ON h.id = c.household_id
+      WHERE s.round_id = $1 ORDER BY s.seq`,
+    [roundId],
+    transaction,
+  );
+}
+
+export interface LockedStop {
+  status: CollectionRequestStatus;
+  householdId: number;
+  bucketCount: number;
+  /** The round's end digester's bucket density, kg/L. */
+  kgPerLitre: number;
+}
+
+/** A stop of a round with its request and the end digester's bucket density; locks the request row. */
+export async function lockStop(
+  transaction: Transaction,
+  roundId: number,
+  requestId: number,
+): Promise<LockedStop | undefined> {
+  const [stop] = await q<LockedStop>(
+    `SELECT c.status, c.household_id AS "householdId", c.bucket_count AS "bucketCount", d.bucket_kg_per_litre::float8 AS "kgPerLitre"
+       FROM collection_round_stops s JOIN collection_requests c ON c.id = s.request_id
+       JOIN collection_rounds r ON r.id = s.round_id JOIN digesters d ON d.id = r.end_digester_id
+      WHERE s.round_id = $1 AND s.request_id = $2 FOR UPDATE OF c`,
+    [roundId, requestId],
+    transaction,
+  );
+  return stop;
+}
+
+export interface CollectedDropOff {
+  householdId: number;
+  digesterId: number;
+  personId: number;
+  forDate: string;
+  bucketCount: number;
+  bucketLitres: number;
+  massSource: MassMethod;
+  freshKg: number;
+  kgVs: number;
+  note: string;
+}
+
+/** Inserts the pending drop-off of collected mixed scraps; returns its id. */
+export async function insertCollectedDropOff(transaction: Transaction, d: CollectedDropOff): Promise<number> {
+  const [dropOff] = await q<{ id: number }>(
+    `INSERT INTO drop_offs (household_id, digester_id, person_id, for_date, bucket_count, bucket_litres, mass_source, fresh_kg, kg_vs, mix, status, note)
+     VALUES ($1, $2, $3, $4, $5, $6, $7, $8, $9, 'mixed', 'pending', $10) RETURNING id`,
+    [
+      d.householdId,
+      d.digesterId,
+      d.personId,
+      d.forDate,
+      d.bucketCount,
+      d.bucketLitres,
+      d.massSource,
+      d.freshKg,
+      d.kgVs,
+      d.note,
+    ],
+    transaction,
+  );
+  return dropOff!.id;
+}
+
+/** Links a stop to the drop-off its collection made. */
+export async function setStopDropOff(
+  transaction: Transaction,
+  roundId: number,
+  requestId: number,
+  dropOffId: number,
+): Promise<void> {
+  await sequelize().query(
+    `UPDATE collection_round_stops SET drop_off_id = $3 WHERE round_id = $1 AND request_id = $2`,
+    {
+      bind: [roundId, requestId, dropOffId],
+      transaction,
+    },
+  );
+}
+
+export async function markRequestCollected(transaction: Transaction, requestId: number): Promise<void> {
+  await sequelize().query(`UPDATE collection_requests SET status = 'collected', updated_at = now() WHERE id = $1`, {
+    bind: [requestId],
+    transaction,
+  });
+}
+
+/** Marks the round done when none of its stops is still planned. */
+export async function finishRoundIfDone(transaction: Transaction, roundId: number): Promise<void> {
+  await sequelize().query(
+    `UPDATE collection_rounds r SET status = 'done', updated_at = now() WHERE r.id = $1 AND NOT EXISTS (
+       SELECT 1 FROM collection_round_stops s JOIN collection_requests c ON c.id = s.request_id
+        WHERE s.round_id = r.id AND c.status = 'planned')`,
+    { bind: [roundId], transaction },
+  );
+}

@@ -1,7 +1,7 @@
 /**
  * Coordinator contracts: assignment proposals (households → digesters), applying them,
- * pinning, and today's rebalancing of pending drop-offs. Requests are `.strict()`.
- * Responses are plain TypeScript types (the server builds them; the client trusts its own API).
+ * pinning, and today's rebalancing of pending drop-offs. Requests are `.strict()`; responses
+ * are plain `z.object`s (an added field does not break an older client) that the API client parses.
  */
 import { z } from "zod";
 
@@ -49,65 +49,75 @@ export type ApplyRequest = z.infer<typeof ApplyRequestSchema>;
 export const PinRequestSchema = z.object({ pinned: z.boolean({ error: "Say pinned true or false." }), digesterId: id.optional() }).strict();
 export const HouseholdIdParamsSchema = z.object({ id: z.coerce.number({ error: "must be a number" }).int().positive().max(2_147_483_647) }).strict();
 
-export interface ProposalAssignment {
-  householdId: number;
-  householdName: string;
-  lat: number;
-  lng: number;
-  fromDigesterId: number | null;
-  toDigesterId: number;
-  distanceM: number;
-  weeklyKg: number;
-  pinned: boolean;
-  changed: boolean;
-}
+/** One household's place in a proposal; `distanceM` in metres, `weeklyKg` in fresh kg a week. */
+export const ProposalAssignmentSchema = z.object({
+  householdId: z.number(),
+  householdName: z.string(),
+  lat: z.number(),
+  lng: z.number(),
+  fromDigesterId: z.number().nullable(),
+  toDigesterId: z.number(),
+  distanceM: z.number(),
+  weeklyKg: z.number(),
+  pinned: z.boolean(),
+  changed: z.boolean(),
+});
+export type ProposalAssignment = z.infer<typeof ProposalAssignmentSchema>;
 
-export interface ProposalDigester {
-  id: number;
-  name: string;
-  lat: number;
-  lng: number;
-  status: "active" | "resting" | "offline";
-  excluded: boolean;
-  available: boolean;
-  loadKg: number;
-  roomKg: number;
-  utilisation: number | null;
-  householdCount: number;
-}
+/** A digester's load in a proposal; kg are fresh kg a week, `utilisation` load ÷ room (null without room). */
+export const ProposalDigesterSchema = z.object({
+  id: z.number(),
+  name: z.string(),
+  lat: z.number(),
+  lng: z.number(),
+  status: z.enum(["active", "resting", "offline"]),
+  excluded: z.boolean(),
+  available: z.boolean(),
+  loadKg: z.number(),
+  roomKg: z.number(),
+  utilisation: z.number().nullable(),
+  householdCount: z.number(),
+});
+export type ProposalDigester = z.infer<typeof ProposalDigesterSchema>;
 
-export interface ProposalUnplaced {
-  householdId: number;
-  householdName: string;
-  weeklyKg: number;
-  reason: string;
-  message: string;
-  suggestion: string;
-}
+/** A household the proposal could not place, with why and what it could do instead. */
+export const ProposalUnplacedSchema = z.object({
+  householdId: z.number(),
+  householdName: z.string(),
+  weeklyKg: z.number(),
+  reason: z.string(),
+  message: z.string(),
+  suggestion: z.string(),
+});
+export type ProposalUnplaced = z.infer<typeof ProposalUnplacedSchema>;
 
-export interface Proposal {
-  version: string;
-  assignments: ProposalAssignment[];
-  digesters: ProposalDigester[];
-  unplaced: ProposalUnplaced[];
-  messages: string[];
-  totalDistanceM: number;
-  baselineDistanceM: number;
-  currentDistanceM: number;
-  changedCount: number;
-  method: string;
-  solverStatus: string;
-  provenOptimal: boolean;
-  gapToLpBound: number | null;
-  solveMs: number;
-  weeklyRoomMethod: string;
-}
+/** `POST /api/assignments/proposals`: distances in metres, `solveMs` in milliseconds. */
+export const ProposalSchema = z.object({
+  version: z.string(),
+  assignments: z.array(ProposalAssignmentSchema),
+  digesters: z.array(ProposalDigesterSchema),
+  unplaced: z.array(ProposalUnplacedSchema),
+  messages: z.array(z.string()),
+  totalDistanceM: z.number(),
+  baselineDistanceM: z.number(),
+  currentDistanceM: z.number(),
+  changedCount: z.number(),
+  method: z.string(),
+  solverStatus: z.string(),
+  provenOptimal: z.boolean(),
+  gapToLpBound: z.number().nullable(),
+  solveMs: z.number(),
+  weeklyRoomMethod: z.string(),
+});
+export type Proposal = z.infer<typeof ProposalSchema>;
 
-export interface ApplyResult {
-  applied: number;
-  emailsQueued: number;
-  version: string;
-}
+/** `POST /api/assignments/apply`: how many changes were applied, e-mails queued, and the new version. */
+export const ApplyResultSchema = z.object({
+  applied: z.number(),
+  emailsQueued: z.number(),
+  version: z.string(),
+});
+export type ApplyResult = z.infer<typeof ApplyResultSchema>;
 
 /** `POST /api/rebalancing/moves`. */
 export const RebalanceMovesSchema = z
@@ -119,26 +129,47 @@ export const RebalanceMovesSchema = z
   })
   .strict();
 
-export interface RebalanceSuggestion {
-  digesterId: number;
-  name: string;
-  distanceM: number;
-  roomKg: number;
-}
+/** `POST /api/rebalancing/moves`: drop-offs moved and e-mails queued. */
+export const RebalanceMovesResultSchema = z.object({ moved: z.number(), emailsQueued: z.number() });
+export type RebalanceMovesResult = z.infer<typeof RebalanceMovesResultSchema>;
 
-export interface RebalanceItem {
-  dropOffId: number;
-  forDate: string;
-  householdId: number;
-  householdName: string;
-  freshKg: number;
-  digesterId: number;
-  digesterName: string;
-  why: string;
-  suggestions: RebalanceSuggestion[];
-}
+/** A digester with room to take a drop-off; `distanceM` in metres, `roomKg` in fresh kg that day. */
+export const RebalanceSuggestionSchema = z.object({
+  digesterId: z.number(),
+  name: z.string(),
+  distanceM: z.number(),
+  roomKg: z.number(),
+});
+export type RebalanceSuggestion = z.infer<typeof RebalanceSuggestionSchema>;
 
-export interface RebalanceView {
-  items: RebalanceItem[];
-  digesters: { id: number; name: string; status: string; roomKg: number; pendingKg: number; problem: string | null }[];
-}
+/** A pending drop-off whose digester cannot take it, with where it could go instead. */
+export const RebalanceItemSchema = z.object({
+  dropOffId: z.number(),
+  forDate: z.string(),
+  householdId: z.number(),
+  householdName: z.string(),
+  freshKg: z.number(),
+  digesterId: z.number(),
+  digesterName: z.string(),
+  why: z.string(),
+  suggestions: z.array(RebalanceSuggestionSchema),
+});
+export type RebalanceItem = z.infer<typeof RebalanceItemSchema>;
+
+/** A digester involved in rebalancing today: room and pending load in fresh kg, and its problem. */
+export const RebalanceDigesterSchema = z.object({
+  id: z.number(),
+  name: z.string(),
+  status: z.string(),
+  roomKg: z.number(),
+  pendingKg: z.number(),
+  problem: z.string().nullable(),
+});
+export type RebalanceDigester = z.infer<typeof RebalanceDigesterSchema>;
+
+/** `GET /api/rebalancing`. */
+export const RebalanceViewSchema = z.object({
+  items: z.array(RebalanceItemSchema),
+  digesters: z.array(RebalanceDigesterSchema),
+});
+export type RebalanceView = z.infer<typeof RebalanceViewSchema>;

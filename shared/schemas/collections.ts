@@ -1,7 +1,8 @@
 /**
  * Collection contracts: residents who cannot carry ask for a collection on a date; coordinators
  * plan cargo-bike rounds for a date; volunteers see their round sheets and mark stops collected.
- * Requests are `.strict()`.
+ * Requests are `.strict()`; responses are plain `z.object`s (an added field does not break an older
+ * client) that the API client parses.
  */
 import { z } from "zod";
 
@@ -48,58 +49,91 @@ export const COLLECTION_REQUEST_STATUS_LABELS: Readonly<Record<CollectionRequest
   cancelled: "Cancelled",
 };
 
-export interface CollectionRequestView {
-  id: number;
-  householdId: number;
-  householdName: string;
-  addressText: string;
-  forDate: string;
-  bucketCount: number;
-  status: CollectionRequestStatus;
-  roundId: number | null;
-}
+export const CollectionRequestStatusSchema = z.enum(COLLECTION_REQUEST_STATUSES);
 
-export interface RoundStopView {
-  seq: number;
-  requestId: number;
-  householdId: number;
-  householdName: string;
-  addressText: string;
-  lat: number;
-  lng: number;
-  bucketCount: number;
-  loadKg: number;
-  legM: number;
-  status: CollectionRequestStatus;
-  dropOffId: number | null;
-}
+/** A point on the map, degrees (WGS 84). */
+const latLng = z.object({ lat: z.number(), lng: z.number() });
 
-export interface RoundSummary {
-  id: number;
-  forDate: string;
-  volunteerId: number;
-  volunteerName: string;
-  endDigesterId: number;
-  endDigesterName: string;
-  totalM: number;
-  loadKg: number;
-  status: "planned" | "done" | "cancelled";
-  stopCount: number;
-  collectedCount: number;
-}
+/** A collection request as the API answers it (`POST /api/collection-requests`, `…/:id/cancel`). */
+export const CollectionRequestViewSchema = z.object({
+  id: z.number(),
+  householdId: z.number(),
+  householdName: z.string(),
+  addressText: z.string(),
+  forDate: z.string(),
+  bucketCount: z.number(),
+  status: CollectionRequestStatusSchema,
+  roundId: z.number().nullable(),
+});
+export type CollectionRequestView = z.infer<typeof CollectionRequestViewSchema>;
 
-export interface RoundSheet extends RoundSummary {
-  start: { lat: number; lng: number } | null;
-  endDigester: { id: number; name: string; siteDescription: string; lat: number; lng: number };
-  endLegM: number;
-  stops: RoundStopView[];
-}
+/** `GET /api/collection-requests`. */
+export const CollectionRequestListSchema = z.object({ requests: z.array(CollectionRequestViewSchema) });
+export type CollectionRequestList = z.infer<typeof CollectionRequestListSchema>;
 
-export interface PlanResult {
-  forDate: string;
-  rounds: RoundSummary[];
-  unplaced: { requestId: number; householdName: string; reason: string; message: string }[];
-  messages: string[];
-  totalM: number;
-  solveMs: number;
-}
+/** One stop of a round sheet, in order; `loadKg` in kg, `legM` in metres from the previous point. */
+export const RoundStopViewSchema = z.object({
+  seq: z.number(),
+  requestId: z.number(),
+  householdId: z.number(),
+  householdName: z.string(),
+  addressText: z.string(),
+  lat: z.number(),
+  lng: z.number(),
+  bucketCount: z.number(),
+  loadKg: z.number(),
+  legM: z.number(),
+  status: CollectionRequestStatusSchema,
+  dropOffId: z.number().nullable(),
+});
+export type RoundStopView = z.infer<typeof RoundStopViewSchema>;
+
+export const ROUND_STATUSES = ["planned", "done", "cancelled"] as const;
+
+/** A round in a list; `totalM` in metres, `loadKg` in kg. */
+export const RoundSummarySchema = z.object({
+  id: z.number(),
+  forDate: z.string(),
+  volunteerId: z.number(),
+  volunteerName: z.string(),
+  endDigesterId: z.number(),
+  endDigesterName: z.string(),
+  totalM: z.number(),
+  loadKg: z.number(),
+  status: z.enum(ROUND_STATUSES),
+  stopCount: z.number(),
+  collectedCount: z.number(),
+});
+export type RoundSummary = z.infer<typeof RoundSummarySchema>;
+
+/** `GET /api/collection-rounds`. */
+export const RoundListSchema = z.object({ rounds: z.array(RoundSummarySchema) });
+export type RoundList = z.infer<typeof RoundListSchema>;
+
+/** `GET /api/collection-rounds/:id` and marking a stop collected: the round sheet. */
+export const RoundSheetSchema = RoundSummarySchema.extend({
+  start: latLng.nullable(),
+  endDigester: z.object({
+    id: z.number(),
+    name: z.string(),
+    siteDescription: z.string(),
+    lat: z.number(),
+    lng: z.number(),
+  }),
+  endLegM: z.number(),
+  stops: z.array(RoundStopViewSchema),
+});
+export type RoundSheet = z.infer<typeof RoundSheetSchema>;
+
+/** `POST /api/collection-rounds/plan`: the date's rounds and the requests that could not be placed. */
+export const PlanResultSchema = z.object({
+  forDate: z.string(),
+  rounds: z.array(RoundSummarySchema),
+  unplaced: z.array(
+    z.object({ requestId: z.number(), householdName: z.string(), reason: z.string(), message: z.string() }),
+  ),
+  messages: z.array(z.string()),
+  totalM: z.number(),
+  solveMs: z.number(),
+});
+export type PlanResult = z.infer<typeof PlanResultSchema>;

@@ -1,12 +1,16 @@
 import { queryOptions, useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
-import type { CollectionRequestView, CreateCollectionRequest } from "@shared/schemas/collections";
+import {
+  CollectionRequestListSchema,
+  CollectionRequestViewSchema,
+  type CreateCollectionRequest,
+} from "@shared/schemas/collections";
 import { api } from "@/lib/api-client";
 import { collectionKeys } from "./keys";
 
 export const myCollectionRequestsQueryOptions = () =>
   queryOptions({
     queryKey: collectionKeys.myRequests(),
-    queryFn: ({ signal }) => api<never>("/api/collection-requests?mine=true", { signal }) as Promise<{ requests: CollectionRequestView[] }>,
+    queryFn: ({ signal }) => api("/api/collection-requests?mine=true", { signal, schema: CollectionRequestListSchema }),
   });
 
 export function useMyCollectionRequests() {
@@ -17,7 +21,7 @@ export function useAskForCollection() {
   const queryClient = useQueryClient();
   return useMutation({
     mutationFn: (body: CreateCollectionRequest) =>
-      api<never>("/api/collection-requests", { method: "POST", body }) as Promise<CollectionRequestView>,
+      api("/api/collection-requests", { method: "POST", body, schema: CollectionRequestViewSchema }),
     onSuccess: () => queryClient.invalidateQueries({ queryKey: collectionKeys.myRequests() }),
   });
 }
@@ -25,7 +29,8 @@ export function useAskForCollection() {
 export function useCancelCollection() {
   const queryClient = useQueryClient();
   return useMutation({
-    mutationFn: (id: number) => api<never>(`/api/collection-requests/${id}/cancel`, { method: "POST", body: {} }) as Promise<CollectionRequestView>,
+    mutationFn: (id: number) =>
+      api(`/api/collection-requests/${id}/cancel`, { method: "POST", body: {}, schema: CollectionRequestViewSchema }),
     onSuccess: () => queryClient.invalidateQueries({ queryKey: collectionKeys.myRequests() }),
   });
 }

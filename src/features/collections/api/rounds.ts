@@ -1,5 +1,5 @@
 import { queryOptions, useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
-import type { PlanResult, RoundSheet, RoundSummary } from "@shared/schemas/collections";
+import { PlanResultSchema, RoundListSchema, RoundSheetSchema } from "@shared/schemas/collections";
 import { api } from "@/lib/api-client";
 import { collectionKeys } from "./keys";
 
@@ -7,7 +7,7 @@ export const roundsQueryOptions = (date: string | undefined) =>
   queryOptions({
     queryKey: collectionKeys.rounds(date),
     queryFn: ({ signal }) =>
-      api<never>(date ? `/api/collection-rounds?date=${date}` : "/api/collection-rounds", { signal }) as Promise<{ rounds: RoundSummary[] }>,
+      api(date ? `/api/collection-rounds?date=${date}` : "/api/collection-rounds", { signal, schema: RoundListSchema }),
   });
 
 export function useRounds(date: string | undefined) {
@@ -17,7 +17,7 @@ export function useRounds(date: string | undefined) {
 export const roundSheetQueryOptions = (id: number) =>
   queryOptions({
     queryKey: collectionKeys.round(id),
-    queryFn: ({ signal }) => api<never>(`/api/collection-rounds/${id}`, { signal }) as Promise<RoundSheet>,
+    queryFn: ({ signal }) => api(`/api/collection-rounds/${id}`, { signal, schema: RoundSheetSchema }),
   });
 
 export function useRoundSheet(id: number) {
@@ -27,7 +27,8 @@ export function useRoundSheet(id: number) {
 export function usePlanRounds() {
   const queryClient = useQueryClient();
   return useMutation({
-    mutationFn: (forDate: string) => api<never>("/api/collection-rounds/plan", { method: "POST", body: { forDate } }) as Promise<PlanResult>,
+    mutationFn: (forDate: string) =>
+      api("/api/collection-rounds/plan", { method: "POST", body: { forDate }, schema: PlanResultSchema }),
     onSuccess: (_r, forDate) => queryClient.invalidateQueries({ queryKey: collectionKeys.rounds(forDate) }),
   });
 }
@@ -36,7 +37,11 @@ export function useMarkCollected(roundId: number) {
   const queryClient = useQueryClient();
   return useMutation({
     mutationFn: (requestId: number) =>
-      api<never>(`/api/collection-rounds/${roundId}/stops/${requestId}/collected`, { method: "POST", body: {} }) as Promise<RoundSheet>,
+      api(`/api/collection-rounds/${roundId}/stops/${requestId}/collected`, {
+        method: "POST",
+        body: {},
+        schema: RoundSheetSchema,
+      }),
     onSuccess: (sheet) => {
       queryClient.setQueryData(collectionKeys.round(roundId), sheet);
       return queryClient.invalidateQueries({ queryKey: [...collectionKeys.all, "rounds"] });

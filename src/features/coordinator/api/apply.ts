@@ -1,10 +1,10 @@
 import { useMutation, useQueryClient } from "@tanstack/react-query";
-import type { ApplyRequest, ApplyResult } from "@shared/schemas/assignments";
+import { type ApplyRequest, ApplyResultSchema } from "@shared/schemas/assignments";
 import { api } from "@/lib/api-client";
 import { coordinatorKeys } from "./keys";
 
 export function applyProposal(body: ApplyRequest) {
-  return api<never>("/api/assignments/apply", { method: "POST", body }) as Promise<ApplyResult>;
+  return api("/api/assignments/apply", { method: "POST", body, schema: ApplyResultSchema });
 }
 
 export function useApplyProposal() {

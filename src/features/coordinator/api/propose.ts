@@ -1,10 +1,10 @@
 import { useMutation } from "@tanstack/react-query";
-import type { Proposal, ProposalRequest } from "@shared/schemas/assignments";
+import { type ProposalRequest, ProposalSchema } from "@shared/schemas/assignments";
 import { api } from "@/lib/api-client";
 
 /** Runs the scheduler; nothing changes on the server. */
 export function propose(body: ProposalRequest) {
-  return api<never>("/api/assignments/proposals", { method: "POST", body }) as Promise<Proposal>;
+  return api("/api/assignments/proposals", { method: "POST", body, schema: ProposalSchema });
 }
 
 export function usePropose() {

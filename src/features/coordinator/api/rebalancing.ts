@@ -1,10 +1,10 @@
 import { queryOptions, useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
-import type { RebalanceView } from "@shared/schemas/assignments";
+import { RebalanceMovesResultSchema, RebalanceViewSchema } from "@shared/schemas/assignments";
 import { api } from "@/lib/api-client";
 import { coordinatorKeys } from "./keys";
 
 export function getRebalancing(signal?: AbortSignal) {
-  return api<never>("/api/rebalancing", { signal }) as Promise<RebalanceView>;
+  return api("/api/rebalancing", { signal, schema: RebalanceViewSchema });
 }
 
 export const rebalancingQueryOptions = () =>
@@ -15,7 +15,7 @@ export function useRebalancing() {
 }
 
 export function moveDropOffs(moves: { dropOffId: number; digesterId: number }[]) {
-  return api<never>("/api/rebalancing/moves", { method: "POST", body: { moves } }) as Promise<{ moved: number; emailsQueued: number }>;
+  return api("/api/rebalancing/moves", { method: "POST", body: { moves }, schema: RebalanceMovesResultSchema });
 }
 
 export function useMoveDropOffs() {

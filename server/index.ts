@@ -19,6 +19,7 @@ async function main() {
   const { createApp } = await import("./app");
   const { closeMail } = await import("./lib/mailer");
   const { startJobs, stopJobs } = await import("./jobs");
+  const { warmUpSolver, stopSolver } = await import("./modules/assignments/solver-pool");
 
   const e = env();
   try {
@@ -41,6 +42,10 @@ async function main() {
     process.send?.({ type: "listening", port });
   });
   if (e.JOBS_ENABLED) startJobs();
+  warmUpSolver().then(
+    (ms) => logger.info({ ms: Math.round(ms) }, "scheduler warmed up"),
+    (err: unknown) => logger.warn({ err: (err as Error).message }, "scheduler warm-up failed; the first proposal will be slower"),
+  );
 
   let stopping = false;
   async function shutdown(signal: string) {
@@ -54,6 +59,7 @@ async function main() {
     force.unref();
     await stopJobs();
     server.close(async () => {
+      await stopSolver().catch(() => undefined);
       await closeDatabase().catch(() => undefined);
       closeMail();
       clearTimeout(force);

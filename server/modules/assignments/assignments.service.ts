@@ -4,14 +4,12 @@
  * 8 weeks of fed or accepted drop-offs, or the declared amount with under 2 weeks of history);
  * digesters offer their weekly room (shared/domain/weekly-room.ts from today's feed budget).
  */
-import { performance } from "node:perf_hooks";
 import type { Transaction } from "sequelize";
 import {
   type AssignmentDigester,
   type AssignmentHousehold,
   type AssignmentInput,
   nearestWithRoomBaseline,
-  solveAssignment,
 } from "../../../shared/domain/assignment";
 import { haversineM, isValidLatLng } from "../../../shared/domain/geo";
 import { WEEKLY_ROOM_METHOD, projectWeeklyRoom } from "../../../shared/domain/weekly-room";
@@ -30,7 +28,7 @@ import { daysBetween, localDate } from "../../lib/clock";
 import { type DigesterToday, loadDigestersToday } from "../digesters/digester-state.service";
 import { enqueueEmail } from "../outbox/outbox.service";
 import { newDigesterEmail } from "./assignments.emails";
-import { highsSolver } from "./highs-solver";
+import { solveOffThread } from "./solver-pool";
 import * as repo from "./assignments.repository";
 
 /** Weeks of history below which the declared amount is used. */
@@ -62,11 +60,10 @@ const round1 = (x: number) => Math.round(x * 10) / 10;
 /** A proposal: nothing is written. */
 export async function propose(request: ProposalRequest, now = new Date()): Promise<Proposal> {
   const today = localDate(now);
-  const [households, states, version, solver] = await Promise.all([
+  const [households, states, version] = await Promise.all([
     repo.assignableHouseholds(today),
     loadDigestersToday(null, { now }),
     repo.assignmentVersion(),
-    highsSolver(),
   ]);
   const messages: string[] = [];
   const householdById = new Map(households.map((h) => [h.id, h]));
@@ -123,9 +120,8 @@ export async function propose(request: ProposalRequest, now = new Date()): Promi
     maxWalkingDistanceM: request.maxWalkM ?? null,
   };
 
-  const started = performance.now();
-  const result = solveAssignment(input, solver, { timeLimitS: 10 });
-  const solveMs = performance.now() - started;
+  // On the worker thread: a tight network can keep HiGHS busy for seconds, and other requests go on meanwhile.
+  const { result, solveMs } = await solveOffThread(input, { timeLimitS: 10 });
   const baseline = nearestWithRoomBaseline(input);
 
   for (const c of result.contradictions) {

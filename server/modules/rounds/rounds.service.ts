@@ -12,7 +12,7 @@ import type { Transaction } from "sequelize";
 import { dropOffQuantities } from "../../../shared/domain/drop-offs";
 import { DEFAULT_BUCKET_LITRES } from "../../../shared/domain/feed-budget";
 import { haversineM, isValidLatLng } from "../../../shared/domain/geo";
-import { planCollectionRounds } from "../../../shared/domain/rounds";
+import { DEFAULT_MAX_END_LEG_M, type UnplacedStopReason, planCollectionRounds } from "../../../shared/domain/rounds";
 import { freshKgFromKgVs } from "../../../shared/domain/scraps";
 import { projectWeeklyRoom } from "../../../shared/domain/weekly-room";
 import {
@@ -42,11 +42,13 @@ export function roomOnDateKg(state: DigesterToday, forDate: string): number {
   return freshKgFromKgVs(projection.dailyKgVs[Math.min(6, k)] ?? 0);
 }
 
-const UNPLACED_WORDS: Record<string, string> = {
+/** The coordinator's words per reason (the domain's own messages name the request id, not the household). */
+const UNPLACED_WORDS: Record<UnplacedStopReason, string> = {
   noLocation: "the household has no location on the map; add one, or ask them to bring the buckets.",
   invalidLoad: "the request has no valid number of buckets.",
   heavierThanAnyBike: "more buckets than any volunteer's cargo bike can carry; split it over two days.",
-  noDigesterWithRoom: "no digester has room for it on this date; plan it another day.",
+  noDigesterWithRoom: `no digester within ${DEFAULT_MAX_END_LEG_M / 1000} km has room left for it on this date; plan it another day.`,
+  noDigesterWithinReach: `no digester with room is within ${DEFAULT_MAX_END_LEG_M / 1000} km of it; plan it another day or ask the household to bring the buckets.`,
   noVolunteer: "no volunteer is available for it; plan it another day or find a volunteer.",
 };
 
@@ -103,7 +105,7 @@ export async function planRounds(forDate: string, now = new Date()): Promise<Pla
         requestId: Number(u.householdId),
         householdName: names.get(u.householdId) ?? "",
         reason: u.reason,
-        message: `${names.get(u.householdId) ?? "A request"}: ${UNPLACED_WORDS[u.reason] ?? u.message}`,
+        message: `${names.get(u.householdId) ?? "A request"}: ${UNPLACED_WORDS[u.reason]}`,
       })),
       messages,
       totalM: plan.totalLengthM,

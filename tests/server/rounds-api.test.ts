@@ -125,6 +125,31 @@ describe("collection rounds", () => {
     expect(Number(count)).toBe(1);
   });
 
+  it("a cancelled stop leaves its round lighter and shorter; a round left with nothing to collect is cancelled", async () => {
+    const { forDate, residents, coordinator, volunteer } = await scene();
+    const ids: number[] = [];
+    for (const r of residents) ids.push((await r.client.post("/api/collection-requests").send({ forDate, bucketCount: 2 })).body.id);
+    const plan = await coordinator.post("/api/collection-rounds/plan").send({ forDate });
+    const round = plan.body.rounds.find((x: { volunteerId: number }) => x.volunteerId === volunteer.person.id);
+    expect(round).toMatchObject({ stopCount: 3, loadKg: 30 });
+    const before = (await volunteer.get(`/api/collection-rounds/${round.id}`)).body;
+
+    // The farthest household (3 Sorrel Lane) cancels: 2 stops, 20 kg, and the round no longer rides out to it.
+    expect((await residents[2]!.client.post(`/api/collection-requests/${ids[2]}/cancel`).send({})).status).toBe(200);
+    const after = (await volunteer.get(`/api/collection-rounds/${round.id}`)).body;
+    expect(after).toMatchObject({ stopCount: 2, loadKg: 20, status: "planned" });
+    expect(after.stops.map((s: { addressText: string }) => s.addressText)).toEqual(["1 Sorrel Lane", "2 Sorrel Lane"]);
+    // Start → stops → digester, as the sheet's own legs say.
+    const legs = after.stops.reduce((sum: number, s: { legM: number }) => sum + s.legM, 0) + after.endLegM;
+    expect(Math.abs(after.totalM - legs)).toBeLessThanOrEqual(2);
+    expect(after.totalM).toBeLessThanOrEqual(before.totalM + 1e-6);
+
+    await residents[0]!.client.post(`/api/collection-requests/${ids[0]}/cancel`).send({});
+    await residents[1]!.client.post(`/api/collection-requests/${ids[1]}/cancel`).send({});
+    const empty = (await coordinator.get(`/api/collection-rounds/${round.id}`)).body;
+    expect(empty).toMatchObject({ stopCount: 0, loadKg: 0, status: "cancelled" });
+  });
+
   it("re-planning replaces untouched rounds; a date without volunteers' room reports why", async () => {
     const { forDate, residents, coordinator, volunteer } = await scene();
     await residents[0]!.client.post("/api/collection-requests").send({ forDate, bucketCount: 20 });

@@ -92,12 +92,13 @@ export async function lockRequest(
   return row;
 }
 
-/** Takes the request off any round it is a stop of. */
-export async function removeFromRounds(transaction: Transaction, requestId: number): Promise<void> {
-  await sequelize().query(`DELETE FROM collection_round_stops WHERE request_id = $1`, {
-    bind: [requestId],
-    transaction,
-  });
+/** Takes the request off the round it is a stop of; returns that round's id (null when none). */
+export async function removeFromRounds(transaction: Transaction, requestId: number): Promise<number | null> {
+  const rows = await sequelize().query<{ roundId: number }>(
+    `DELETE FROM collection_round_stops WHERE request_id = $1 RETURNING round_id AS "roundId"`,
+    { bind: [requestId], type: QueryTypes.SELECT, transaction },
+  );
+  return rows[0]?.roundId ?? null;
 }
 
 export async function markCancelled(transaction: Transaction, id: number): Promise<void> {

@@ -8,6 +8,7 @@ import { AppError, badRequest, conflict, forbidden, notFound } from "../../lib/a
 import { addDays, localDate } from "../../lib/clock";
 import type { Caller } from "../../middleware/handle";
 import * as repo from "./collections.repository";
+import { refreshRound } from "../rounds/rounds.service";
 
 /** How far ahead a collection may be asked for, days. */
 export const MAX_DAYS_AHEAD = 60;
@@ -54,8 +55,10 @@ export async function cancelRequest(caller: Caller, id: number): Promise<Collect
     if (row.status !== "open" && row.status !== "planned") {
       throw conflict(`This collection is already ${row.status}; it cannot be cancelled.`);
     }
-    await repo.removeFromRounds(transaction, id);
+    const roundId = await repo.removeFromRounds(transaction, id);
     await repo.markCancelled(transaction, id);
+    // The round it leaves is re-measured: lighter, shorter, and done or cancelled when nothing is left to collect.
+    if (roundId !== null) await refreshRound(transaction, roundId);
     return (await repo.findRequestView(id, transaction))!;
   });
 }

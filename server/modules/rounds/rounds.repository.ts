@@ -320,3 +320,15 @@ export async function finishRoundIfDone(transaction: Transaction, roundId: numbe
     { bind: [roundId], transaction },
   );
 }
+
+/** Stores a round's length, load and status after its stops changed. */
+export async function updateRoundTotals(
+  transaction: Transaction,
+  roundId: number,
+  totals: { totalM: number; loadKg: number; status: "planned" | "done" | "cancelled" },
+): Promise<void> {
+  await sequelize().query(
+    `UPDATE collection_rounds SET total_m = $2, load_kg = $3, status = $4, updated_at = now() WHERE id = $1`,
+    { bind: [roundId, totals.totalM, totals.loadKg, totals.status], transaction },
+  );
+}

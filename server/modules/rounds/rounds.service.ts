@@ -134,6 +134,30 @@ async function loadRound(caller: Caller, id: number, transaction?: Transaction, 
   return round;
 }
 
+/**
+ * Re-measures a round after a stop left it (a cancelled request): load and length from the stops
+ * that remain, in their order; "cancelled" when none remain, "done" when all remaining are collected.
+ */
+export async function refreshRound(transaction: Transaction, roundId: number): Promise<void> {
+  const round = await repo.findRound(roundId, { transaction, lock: true });
+  if (!round || round.status === "cancelled") return;
+  const stops = await repo.roundStops(roundId, transaction);
+  const end = await repo.findEndDigester(round.endDigesterId, transaction);
+  let previous = isValidLatLng(round.startLat, round.startLng) ? { lat: round.startLat!, lng: round.startLng! } : null;
+  let totalM = 0;
+  for (const s of stops) {
+    if (previous) totalM += haversineM(previous, s);
+    previous = { lat: s.lat, lng: s.lng };
+  }
+  if (previous && end && stops.length > 0) totalM += haversineM(previous, end);
+  const status = stops.length === 0 ? "cancelled" : stops.every((s) => s.status === "collected") ? "done" : round.status;
+  await repo.updateRoundTotals(transaction, roundId, {
+    totalM: Math.round(totalM * 10) / 10,
+    loadKg: stops.reduce((sum, s) => sum + s.bucketCount * COLLECTION_BUCKET_KG, 0),
+    status,
+  });
+}
+
 /** The round sheet: stops in order with address, buckets and legs, start and end. */
 export async function roundSheet(caller: Caller, id: number, transaction?: Transaction): Promise<RoundSheet> {
   const round = await loadRound(caller, id, transaction);

@@ -73,6 +73,10 @@ describe("rebalancing today", () => {
     const mail = await sql<{ subject: string }>(`SELECT subject FROM outbox_emails WHERE to_address = $1`, [resident.email]);
     expect(mail.map((m) => m.subject)).toEqual([expect.stringContaining(near.name)]);
 
+    // Moving it where it already is counts as no move and writes no e-mail.
+    const same = await coordinator.post("/api/rebalancing/moves").send({ moves: [{ dropOffId, digesterId: near.id }] });
+    expect(same.body).toEqual({ moved: 0, emailsQueued: 0 });
+
     await sql(`UPDATE drop_offs SET status = 'cancelled' WHERE id = $1`, [dropOffId]);
     const again = await coordinator.post("/api/rebalancing/moves").send({ moves: [{ dropOffId, digesterId: near.id }] });
     expect(again.status).toBe(409);

@@ -137,6 +137,7 @@ export async function moveDropOffs(moves: { dropOffId: number; digesterId: numbe
     const pendingById = new Map(allPending.map((p) => [p.id, p]));
     const seen = new Set<number>();
     let emailsQueued = 0;
+    let moved = 0;
     for (const [i, m] of moves.entries()) {
       if (seen.has(m.dropOffId)) throw badRequest(`Drop-off ${m.dropOffId} appears twice.`, { [`moves.${i}.dropOffId`]: "Listed twice." });
       seen.add(m.dropOffId);
@@ -159,11 +160,13 @@ export async function moveDropOffs(moves: { dropOffId: number; digesterId: numbe
       room.free.set(key(m.digesterId, p.forDate), free - p.freshKg);
       room.free.set(key(p.digesterId, p.forDate), (room.free.get(key(p.digesterId, p.forDate)) ?? 0) + p.freshKg);
       await repo.moveDropOff(transaction, p.id, m.digesterId);
+      moved++;
       for (const r of await residentsOf([p.householdId], transaction)) {
         await enqueueEmail(transaction, dropOffMovedEmail({ to: r.email, name: r.name, forDate: p.forDate, fromName, toName: target.digester.name, why }));
         emailsQueued++;
       }
     }
-    return { moved: seen.size, emailsQueued };
+    // A "move" to the digester it already has is skipped and not counted.
+    return { moved, emailsQueued };
   });
 }

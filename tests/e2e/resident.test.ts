@@ -225,8 +225,15 @@ describe("a new resident registers their household", () => {
     await page.screenshot({ path: "test-results/household.png", fullPage: true });
     expect(await axeViolations(page)).toEqual([]);
 
-    await page.getByRole("link", { name: "Log a drop-off" }).first().click();
+    // On a phone the main links fold behind "Menu"; it opens, and closes again after the choice.
+    const menu = page.getByRole("button", { name: "Menu" });
+    expect(await menu.getAttribute("aria-expanded")).toBe("false");
+    expect(await page.getByRole("navigation", { name: "Main" }).isVisible()).toBe(false);
+    await menu.click();
+    expect(await menu.getAttribute("aria-expanded")).toBe("true");
+    await page.getByRole("navigation", { name: "Main" }).getByRole("link", { name: "Log a drop-off" }).click();
     await page.getByRole("heading", { level: 1, name: "Log a drop-off" }).waitFor();
+    expect(await menu.getAttribute("aria-expanded")).toBe("false");
     await page.close();
   });
 });

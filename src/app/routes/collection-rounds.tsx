@@ -91,8 +91,9 @@ function CollectionRoundsPage() {
               {rounds.data.rounds.map((r) => (
                 <TR key={r.id}>
                   <TD>
-                    <Link to={paths.roundSheet(r.id)}>
-                      {r.forDate}<span className="sr-only">: round sheet of {r.volunteerName}</span>
+                    <Link to={paths.roundSheet(r.id)} className="inline-flex min-h-11 items-center font-bold text-primary underline">
+                      {r.forDate}
+                      <span className="sr-only">: round sheet of {r.volunteerName}</span>
                     </Link>
                   </TD>
                   <TD>{r.volunteerName}</TD>

@@ -37,7 +37,7 @@ function RoundSheetPage() {
         </Link>
       </div>
       {collected.error ? <Alert variant="danger" title="Not marked">{collected.error.message}</Alert> : null}
-      <div className="grid gap-6 lg:grid-cols-[3fr_2fr]">
+      <div className="grid grid-cols-[minmax(0,1fr)] gap-6 lg:grid-cols-[minmax(0,3fr)_minmax(0,2fr)]">
         <section aria-labelledby="stops-heading">
           <h2 id="stops-heading" className="mb-2 text-2xl font-bold">
             Stops in order
@@ -48,9 +48,10 @@ function RoundSheetPage() {
               <TR>
                 <TH>No.</TH>
                 <TH>Address</TH>
+                {/* Status before the figures: on a phone the "Mark collected" button stays on the first screen. */}
+                <TH>Status</TH>
                 <TH>Buckets</TH>
                 <TH>From the last point</TH>
-                <TH>Status</TH>
               </TR>
             </THead>
             <TBody>
@@ -62,8 +63,6 @@ function RoundSheetPage() {
                     <br />
                     {stop.householdName}
                   </TD>
-                  <TD>{stop.bucketCount}</TD>
-                  <TD>{km(stop.legM)}</TD>
                   <TD>
                     {stop.status === "planned" ? (
                       <Button type="button" size="sm" data-print-hide loading={collected.isPending && collected.variables === stop.requestId} onClick={() => collected.mutate(stop.requestId)}>
@@ -73,6 +72,8 @@ function RoundSheetPage() {
                       <Badge tone={stop.status === "collected" ? "success" : "neutral"}>{COLLECTION_REQUEST_STATUS_LABELS[stop.status]}</Badge>
                     )}
                   </TD>
+                  <TD>{stop.bucketCount}</TD>
+                  <TD>{km(stop.legM)}</TD>
                 </TR>
               ))}
               <TR>
@@ -82,9 +83,9 @@ function RoundSheetPage() {
                   <br />
                   {s.endDigester.siteDescription}
                 </TD>
+                <TD>Hand the buckets to the steward</TD>
                 <TD>{s.loadKg.toFixed(0)} kg in all</TD>
                 <TD>{km(s.endLegM)}</TD>
-                <TD>Hand the buckets to the steward</TD>
               </TR>
             </TBody>
           </Table>

@@ -1,5 +1,6 @@
-import { NavLink, Outlet, ScrollRestoration } from "react-router-dom";
-import { Suspense, type ReactNode } from "react";
+import { NavLink, Outlet, ScrollRestoration, useLocation } from "react-router-dom";
+import { Suspense, useEffect, useRef, useState, type ReactNode } from "react";
+import { Menu, X } from "lucide-react";
 import { cn } from "@/lib/cn";
 import { paths } from "@/config/paths";
 import { Spinner } from "@/components/ui";
@@ -30,6 +31,11 @@ export type AppShellProps = {
 
 /** Skip link, header with navigation, the page, and a footer. */
 export function AppShell({ extraNavItems = [], accountArea, children }: AppShellProps = {}) {
+  // On phones the links fold behind a "Menu" button, so each page starts on the first screen.
+  const [menuOpen, setMenuOpen] = useState(false);
+  const menuButton = useRef<HTMLButtonElement>(null);
+  const { pathname } = useLocation();
+  useEffect(() => setMenuOpen(false), [pathname]);
   return (
     <div className="flex min-h-dvh flex-col">
       <a
@@ -44,8 +50,29 @@ export function AppShell({ extraNavItems = [], accountArea, children }: AppShell
             <img src="/favicon.svg" alt="" width={28} height={28} />
             Hearthloop
           </NavLink>
-          <nav aria-label="Main">
-            <ul className="flex flex-wrap gap-1">
+          <button
+            ref={menuButton}
+            type="button"
+            className="inline-flex min-h-11 items-center gap-2 rounded-md border border-primary-foreground/50 px-3 font-bold text-primary-foreground hover:bg-primary-foreground/15 md:hidden"
+            aria-expanded={menuOpen}
+            aria-controls="main-nav"
+            onClick={() => setMenuOpen((open) => !open)}
+          >
+            {menuOpen ? <X aria-hidden size={20} /> : <Menu aria-hidden size={20} />}
+            Menu
+          </button>
+          <nav
+            id="main-nav"
+            aria-label="Main"
+            className={cn("w-full md:block md:w-auto", menuOpen ? "block" : "hidden")}
+            onKeyDown={(e) => {
+              if (e.key === "Escape" && menuOpen) {
+                setMenuOpen(false);
+                menuButton.current?.focus();
+              }
+            }}
+          >
+            <ul className="flex flex-col gap-1 md:flex-row md:flex-wrap">
               {[...navItems, ...extraNavItems].map((item) => (
                 <li key={item.to}>
                   <NavLink to={item.to} end={item.end} className={navClass}>

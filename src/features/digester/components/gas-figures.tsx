@@ -22,7 +22,7 @@ export function GasFigures({ profile, history }: { profile: DigesterProfile; his
         })
       : null;
   return (
-    <div className="grid gap-4 lg:grid-cols-[2fr_3fr]">
+    <div className="grid grid-cols-[minmax(0,1fr)] gap-4 lg:grid-cols-[minmax(0,2fr)_minmax(0,3fr)]">
       <div className="grid gap-3 sm:grid-cols-2 lg:grid-cols-1">
         <Stat
           label="Expected biogas today (estimate)"

@@ -21,7 +21,7 @@ function boundsOf(digesters: PublicDigester[]): LatLngBoundsExpression | undefin
 export function PublicDigesterMap({ digesters }: { digesters: PublicDigester[] }) {
   const first = digesters[0]?.location ?? { lat: 53.274, lng: -1.612 };
   return (
-    <div className="grid gap-6 lg:grid-cols-[2fr_1fr]">
+    <div className="grid grid-cols-[minmax(0,1fr)] gap-6 lg:grid-cols-[minmax(0,2fr)_minmax(0,1fr)]">
       <BaseMap
         label="Map of the neighbourhood's digesters"
         center={[first.lat, first.lng]}

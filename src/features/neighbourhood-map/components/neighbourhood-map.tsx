@@ -128,7 +128,7 @@ export function NeighbourhoodMap({ digesters, households, canLogDropOff }: Neigh
     ) : null;
 
   return (
-    <div className="grid gap-6 lg:grid-cols-[3fr_2fr]">
+    <div className="grid grid-cols-[minmax(0,1fr)] gap-6 lg:grid-cols-[minmax(0,3fr)_minmax(0,2fr)]">
       <BaseMap
         label="Map of digesters and their room today"
         center={[centre.lat, centre.lng]}

@@ -97,8 +97,10 @@ describe("the demo resident logs a bucket with the keyboard only", () => {
     const page = await freshPhone();
     await signIn(page, DEMO_SIGN_IN_EMAILS.resident, DEMO_PASSWORD);
 
-    // From the page after sign-in: the "Log a drop-off" link in the navigation.
+    // From the page after sign-in: the "Log a drop-off" link in the navigation, behind "Menu" on a phone.
     const nav = new Keys(page);
+    await nav.tabTo("Menu");
+    await nav.press("Enter");
     await nav.tabTo("Log a drop-off");
     await nav.press("Enter");
     await page.getByRole("heading", { level: 1, name: "Log a drop-off" }).waitFor();

@@ -1,6 +1,7 @@
 /** node-cron schedules; each job only calls a service. */
 import { startHousekeepingJob } from "./housekeeping.job";
 import { startOutboxJob } from "./outbox.job";
+import { startRemindersJob } from "./reminders.job";
 
 const stops: Array<() => Promise<void> | void> = [];
 
@@ -9,6 +10,7 @@ export function startJobs() {
   if (stops.length > 0) return;
   stops.push(startOutboxJob());
   stops.push(startHousekeepingJob());
+  stops.push(startRemindersJob());
 }
 
 export async function stopJobs() {

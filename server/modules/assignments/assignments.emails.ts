@@ -1,16 +1,5 @@
+import { htmlBody as html, plainBody as plain } from "../../lib/email-body";
 import type { OutgoingEmail } from "../outbox/outbox.service";
-
-function escapeHtml(text: string): string {
-  return text.replace(/[&<>"']/g, (c) => ({ "&": "&amp;", "<": "&lt;", ">": "&gt;", '"': "&quot;", "'": "&#39;" })[c] ?? c);
-}
-
-function html(paragraphs: string[]): string {
-  return `<!doctype html><html lang="en"><body style="font-family:sans-serif;font-size:18px;line-height:1.5">${paragraphs
-    .map((p) => `<p>${escapeHtml(p)}</p>`)
-    .join("")}</body></html>`;
-}
-
-const plain = (paragraphs: string[]) => `${paragraphs.join("\n\n")}\n`;
 
 /** A household was moved to another digester by a coordinator. */
 export function newDigesterEmail(input: {

@@ -2,18 +2,8 @@
  * Account e-mails: plain text first (read everywhere, screen-reader friendly), with a simple
  * HTML part. Links carry one-time tokens; the e-mail never contains a password.
  */
+import { htmlBody as html } from "../../lib/email-body";
 import type { OutgoingEmail } from "./outbox.service";
-
-function escapeHtml(text: string): string {
-  return text.replace(/[&<>"']/g, (c) => ({ "&": "&amp;", "<": "&lt;", ">": "&gt;", '"': "&quot;", "'": "&#39;" })[c] ?? c);
-}
-
-/** Paragraphs as HTML; the link, when given, goes right after paragraph `linkAfter`. */
-function html(paragraphs: string[], link?: { href: string; label: string; linkAfter: number }): string {
-  const body = paragraphs.map((p) => `<p>${escapeHtml(p)}</p>`);
-  if (link) body.splice(link.linkAfter + 1, 0, `<p><a href="${escapeHtml(link.href)}">${escapeHtml(link.label)}</a></p>`);
-  return `<!doctype html><html lang="en"><body style="font-family:sans-serif;font-size:18px;line-height:1.5">${body.join("")}</body></html>`;
-}
 
 function formatWhen(date: Date): string {
   return date.toUTCString().replace("GMT", "UTC");

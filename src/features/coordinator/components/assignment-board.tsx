@@ -321,6 +321,15 @@ export function AssignmentBoard() {
   );
 }
 
+/** How the plan was found, in the coordinator's words. */
+const METHOD_WORDS: Record<string, string> = {
+  exactMip: "Exact solver (HiGHS)",
+  lpRoundRepair: "Large network: solved approximately, with a bound on how far off it can be",
+  localSearchFallback: "The solver could not finish; nearest digester with room, improved",
+  nearestWithRoom: "Nearest digester with room",
+  nothingToSolve: "Nothing to place",
+};
+
 function ProposalView({
   proposal,
   excluded,
@@ -331,7 +340,9 @@ function ProposalView({
   onToggleExcluded: (id: number) => void;
 }) {
   const gap =
-    proposal.gapToLpBound === null ? "no bound" : `${(proposal.gapToLpBound * 100).toFixed(2)} % from the bound`;
+    proposal.gapToLpBound === null
+      ? "Best found"
+      : `At most ${(proposal.gapToLpBound * 100).toFixed(2)} % longer than the best possible`;
   return (
     <>
       <div className="grid gap-4 sm:grid-cols-2 lg:grid-cols-4">
@@ -349,7 +360,7 @@ function ProposalView({
         <Stat
           label="Solver"
           value={proposal.provenOptimal ? "Proven best" : gap}
-          hint={`${proposal.method}, ${proposal.solverStatus}, ${Math.round(proposal.solveMs)} ms`}
+          hint={`${METHOD_WORDS[proposal.method] ?? proposal.method}; ${(proposal.solveMs / 1000).toFixed(1)} s`}
         />
       </div>
       {proposal.messages.length > 0 ? (

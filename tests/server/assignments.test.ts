@@ -82,6 +82,10 @@ describe("assignment proposals", () => {
     expect(text).toMatch(/Contradictory pins: .* pinned to both/);
     expect(text).toMatch(/maximum walk of 5 m cannot be met/);
     expect(text).toMatch(/no location on the map/);
+    // Each problem is said once, with names: no raw ids from the solver.
+    // (The solver says "Household 12 … digester 7"; test fixtures are named "Test household 12".)
+    expect(text).not.toMatch(/(^|\n)Household \d+ |[^t] digester \d+|pinned to \d+/);
+    expect(text.match(/pinned to both/g)).toHaveLength(1);
     const nowhere = res.body.unplaced.find((u: { householdId: number }) => u.householdId === row!.id);
     expect(nowhere).toMatchObject({ reason: "noLocation" });
     const offlineLoad = res.body.digesters.find((d: { id: number }) => d.id === offline.id);
@@ -122,7 +126,8 @@ describe("applying a proposal", () => {
     ]);
     expect(mail).toHaveLength(1);
     expect(mail[0]!.subject).toContain(near.name);
-    expect(mail[0]!.text_body).toContain("Why:");
+    // The households sit beside "near" and 1.1 km from "far", which has room: the e-mail says so.
+    expect(mail[0]!.text_body).toMatch(new RegExp(`Why: ${near.name} is about 1[01]\\d\\d m closer to your home than`));
   });
 
   it("a stale proposal is a 409 and nothing is half-applied", async () => {

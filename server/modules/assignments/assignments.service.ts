@@ -4,9 +4,10 @@
  * 8 weeks of fed or accepted drop-offs, or the declared amount with under 2 weeks of history);
  * digesters offer their weekly room (shared/domain/weekly-room.ts from today's feed budget).
  */
-import type { Transaction } from "sequelize";
+import { Transaction } from "sequelize";
 import {
   type AssignmentDigester,
+  type AssignmentResult,
   type AssignmentHousehold,
   type AssignmentInput,
   nearestWithRoomBaseline,
@@ -57,13 +58,59 @@ export function digesterWeeklyRoomKg(state: DigesterToday, excluded: boolean): n
 
 const round1 = (x: number) => Math.round(x * 10) / 10;
 
+/**
+ * The solver's own messages as a coordinator reads them: those this service already says in its
+ * own words (contradictory pins, digesters without room, the unplaced summary) are left out,
+ * technical ones are put plainly, and ids become names.
+ */
+function coordinatorMessages(
+  result: AssignmentResult,
+  householdName: (id: string) => string,
+  digesterName: (id: string) => string,
+): string[] {
+  const contradictions = new Set(result.contradictions.map((c) => c.message));
+  const out: string[] = [];
+  for (const m of result.messages) {
+    if (contradictions.has(m)) continue;
+    if (/could not be placed; see the list/.test(m)) continue;
+    if (/^Digester \S+ has no room this week/.test(m) || m.startsWith("No digester is taking scraps")) continue;
+    if (m.startsWith("Large network")) {
+      out.push(
+        result.gapToLpBound === null
+          ? "This network is large, so the plan was found approximately; it is not proven the best."
+          : `This network is large, so the plan was found approximately: it is at most ${(result.gapToLpBound * 100).toFixed(2)} % longer in walking than the best possible.`,
+      );
+      continue;
+    }
+    if (m.startsWith("HiGHS stopped before proving")) {
+      out.push("The solver reached its time limit before proving this plan the best; the solver card shows how close it is.");
+      continue;
+    }
+    if (m.startsWith("HiGHS did not solve") || m.startsWith("HiGHS failed")) {
+      out.push("The solver could not finish, so this plan comes from the nearest digester with room, improved by hand-made moves.");
+      continue;
+    }
+    out.push(
+      m
+        .replace(/\bHousehold (\d+)\b/g, (_, id: string) => householdName(id))
+        .replace(/\b[Dd]igester (\d+)\b/g, (_, id: string) => digesterName(id))
+        .replace(/\bpinned to (\d+)\b/g, (_, id: string) => `pinned to ${digesterName(id)}`),
+    );
+  }
+  return out;
+}
+
 /** A proposal: nothing is written. */
 export async function propose(request: ProposalRequest, now = new Date()): Promise<Proposal> {
   const today = localDate(now);
-  const [households, states, version] = await Promise.all([
-    repo.assignableHouseholds(today),
+  const [[households, version], states] = await Promise.all([
+    // One snapshot for the households and the version, so a change landing in between cannot
+    // give a stale proposal a fresh version (apply would then not answer 409).
+    sequelize().transaction({ isolationLevel: Transaction.ISOLATION_LEVELS.REPEATABLE_READ }, async (transaction) => {
+      const rows = await repo.assignableHouseholds(today, transaction);
+      return [rows, await repo.assignmentVersion(transaction)] as const;
+    }),
     loadDigestersToday(null, { now }),
-    repo.assignmentVersion(),
   ]);
   const messages: string[] = [];
   const householdById = new Map(households.map((h) => [h.id, h]));
@@ -135,7 +182,7 @@ export async function propose(request: ProposalRequest, now = new Date()): Promi
           : `Contradictory pin: the households pinned to ${where} bring more than its weekly room; ${who} is placed like any other household.`,
     );
   }
-  for (const m of result.messages) messages.push(m);
+  for (const m of coordinatorMessages(result, householdName, digesterName)) messages.push(m);
 
   const noLocation = result.unplaced.filter((u) => u.reason === "noLocation");
   if (noLocation.length > 0) {
@@ -251,7 +298,46 @@ interface Move {
   toDigesterId: number;
 }
 
-async function notifyMoves(transaction: Transaction, moves: Move[], why: string, now: Date): Promise<number> {
+/**
+ * Why a household moves, in the resident's words: its digester is closed, or over its safe weekly
+ * feed, or the new one is closer; else the general reason. `loadsBefore` is each digester's
+ * expected weekly kg before the change.
+ */
+function moveReason(
+  m: Move,
+  ctx: {
+    stateById: Map<number, DigesterToday>;
+    householdById: Map<number, repo.AssignableHousehold>;
+    loadsBefore: Map<number, number>;
+  },
+): string {
+  const from = m.fromDigesterId === null ? undefined : ctx.stateById.get(m.fromDigesterId);
+  const to = ctx.stateById.get(m.toDigesterId);
+  if (!to) return DEFAULT_WHY;
+  if (!from) return `your household had no digester yet, and ${to.digester.name} has room for your scraps.`;
+  if (from.closed) {
+    return `${from.digester.name} is ${from.digester.status} for now${from.digester.statusReason ? ` (${from.digester.statusReason})` : ""}, so its households bring their scraps to other digesters.`;
+  }
+  const room = digesterWeeklyRoomKg(from, false);
+  const load = ctx.loadsBefore.get(from.digester.id) ?? 0;
+  if (load > room + 1e-6) {
+    return `${from.digester.name} was expecting about ${Math.round(load)} kg of scraps this week but can safely digest about ${Math.round(room)} kg, and ${to.digester.name} has room.`;
+  }
+  const h = ctx.householdById.get(m.householdId);
+  if (h && isValidLatLng(h.lat, h.lng)) {
+    const home = { lat: h.lat!, lng: h.lng! };
+    const closer = haversineM(home, from.digester) - haversineM(home, to.digester);
+    if (closer >= 10) return `${to.digester.name} is about ${Math.round(closer)} m closer to your home than ${from.digester.name}.`;
+  }
+  return DEFAULT_WHY;
+}
+
+async function notifyMoves(
+  transaction: Transaction,
+  moves: Move[],
+  why: string | ((m: Move) => string),
+  now: Date,
+): Promise<number> {
   if (moves.length === 0) return 0;
   const [residents, states, households] = await Promise.all([
     repo.residentsOf(moves.map((m) => m.householdId), transaction),
@@ -277,7 +363,7 @@ async function notifyMoves(transaction: Transaction, moves: Move[], why: string,
           siteDescription: to.siteDescription,
           distanceM,
           previousDigesterName: m.fromDigesterId === null ? null : (stateById.get(m.fromDigesterId)?.name ?? null),
-          why,
+          why: typeof why === "string" ? why : why(m),
         }),
       );
       queued++;
@@ -325,7 +411,15 @@ export async function apply(request: ApplyRequest, now = new Date()): Promise<Ap
         moves.push({ householdId: h.id, fromDigesterId: h.assignedDigesterId, toDigesterId: c.digesterId });
       }
     }
-    const why = request.reason ? `${request.reason}` : DEFAULT_WHY;
+    const today = localDate(now);
+    const loadsBefore = new Map<number, number>();
+    for (const h of households) {
+      if (h.assignedDigesterId !== null)
+        loadsBefore.set(h.assignedDigesterId, (loadsBefore.get(h.assignedDigesterId) ?? 0) + householdWeeklyKg(h, today));
+    }
+    const why = request.reason
+      ? request.reason
+      : (m: Move) => moveReason(m, { stateById, householdById: byId, loadsBefore });
     const emailsQueued = await notifyMoves(transaction, moves, why, now);
     return { applied: request.changes.length, emailsQueued, version: await repo.assignmentVersion(transaction) };
   });

@@ -1,10 +1,12 @@
 import { describe, expect, it } from "vitest";
 import { createApp } from "../../server/app";
+import { localDate } from "../../server/lib/clock";
 import { signedInClient, sql } from "../helpers/db";
 import { roundsScene } from "../helpers/rounds-fixtures";
 
 const app = createApp({ requestLogging: false });
-const scene = () => roundsScene(app);
+const scene = (forDate?: string) => roundsScene(app, forDate);
+const today = () => localDate(new Date());
 
 describe("collection requests", () => {
   it("a resident asks for a collection for their own household, once per day, and can cancel it", async () => {
@@ -33,7 +35,8 @@ describe("collection requests", () => {
 
 describe("collection rounds", () => {
   it("plans a round, gives the sheet and valid GeoJSON, and a collected stop becomes a pending drop-off", async () => {
-    const { forDate, digester, residents, volunteer, coordinator, spot } = await scene();
+    // Today: a stop is collected on its round's day.
+    const { forDate, digester, residents, volunteer, coordinator, spot } = await scene(today());
     for (const r of residents) expect((await r.client.post("/api/collection-requests").send({ forDate, bucketCount: 2 })).status).toBe(201);
 
     const plan = await coordinator.post("/api/collection-rounds/plan").send({ forDate });
@@ -76,16 +79,19 @@ describe("collection rounds", () => {
       expect(Math.abs(lat)).toBeLessThanOrEqual(90);
     }
 
+    // The steward's bucket density (1 kg/L) is for weighing on acceptance; the ledger records what the plan reserved.
+    await sql(`UPDATE digesters SET bucket_kg_per_litre = 1.0 WHERE id = $1`, [digester.id]);
     const first = sheet.body.stops[0];
     const collected = await volunteer.post(`/api/collection-rounds/${round.id}/stops/${first.requestId}/collected`).send({});
     expect(collected.status).toBe(200);
     const stop = collected.body.stops[0];
     expect(stop).toMatchObject({ status: "collected" });
-    const [dropOff] = await sql<{ digester_id: number; household_id: number; status: string; bucket_count: number }>(
-      `SELECT digester_id, household_id, status, bucket_count FROM drop_offs WHERE id = $1`,
+    const [dropOff] = await sql<{ digester_id: number; household_id: number; status: string; bucket_count: number; fresh_kg: number; for_date: string }>(
+      `SELECT digester_id, household_id, status, bucket_count, fresh_kg::float8 AS fresh_kg, for_date::text AS for_date FROM drop_offs WHERE id = $1`,
       [stop.dropOffId],
     );
-    expect(dropOff).toEqual({ digester_id: digester.id, household_id: first.householdId, status: "pending", bucket_count: 2 });
+    // 2 buckets × 5 kg (COLLECTION_BUCKET_KG), as planned, not 2 × 10 L × 1 kg/L.
+    expect(dropOff).toEqual({ digester_id: digester.id, household_id: first.householdId, status: "pending", bucket_count: 2, fresh_kg: 10, for_date: forDate });
     const again = await volunteer.post(`/api/collection-rounds/${round.id}/stops/${first.requestId}/collected`).send({});
     expect(again.status).toBe(409);
     const [{ count }] = (await sql<{ count: string }>(`SELECT count(*) FROM drop_offs WHERE household_id = $1`, [first.householdId])) as [{ count: string }];

@@ -42,6 +42,9 @@ export function roomOnDateKg(state: DigesterToday, forDate: string): number {
   return freshKgFromKgVs(projection.dailyKgVs[Math.min(6, k)] ?? 0);
 }
 
+/** Planning's density of a collected bucket, kg/L: the drop-off records what the plan reserved (the steward weighs on accepting). */
+const COLLECTION_KG_PER_LITRE = COLLECTION_BUCKET_KG / DEFAULT_BUCKET_LITRES;
+
 /** The coordinator's words per reason (the domain's own messages name the request id, not the household). */
 const UNPLACED_WORDS: Record<UnplacedStopReason, string> = {
   noLocation: "the household has no location on the map; add one, or ask them to bring the buckets.",
@@ -213,8 +216,8 @@ export async function roundGeoJson(caller: Caller, id: number): Promise<string> 
 }
 
 /**
- * Marks a stop collected: creates a pending drop-off (buckets of 10 L, estimated mass, mixed
- * scraps) at the round's end digester for the steward to accept, and marks the request
+ * Marks a stop collected: creates a pending drop-off (buckets of 10 L at planning's 0.5 kg/L,
+ * estimated mass, mixed scraps) at the round's end digester for the steward to accept, and marks the request
  * collected, in one transaction. A second call is a 409.
  */
 export async function markCollected(caller: Caller, roundId: number, requestId: number): Promise<RoundSheet> {
@@ -228,7 +231,7 @@ export async function markCollected(caller: Caller, roundId: number, requestId: 
     const quantities = dropOffQuantities({
       bucketCount: stop.bucketCount,
       bucketLitres: DEFAULT_BUCKET_LITRES,
-      kgPerLitre: stop.kgPerLitre,
+      kgPerLitre: COLLECTION_KG_PER_LITRE,
       mix: "mixed",
     });
     const dropOffId = await repo.insertCollectedDropOff(transaction, {

@@ -8,6 +8,19 @@ const app = createApp({ requestLogging: false });
 const scene = (forDate?: string) => roundsScene(app, forDate);
 const today = () => localDate(new Date());
 
+type Round = { id: number; volunteerId: number; endDigesterId: number; stopCount: number; loadKg: number };
+
+/** Everything a collection may have written for a household or a round: drop-offs, request statuses, stop links. */
+async function collectionTrace(householdIds: number[], roundId: number) {
+  const [row] = await sql<{ drop_offs: number; collected: number; linked: number }>(
+    `SELECT (SELECT count(*)::int FROM drop_offs WHERE household_id = ANY($1::int[])) AS drop_offs,
+            (SELECT count(*)::int FROM collection_requests WHERE household_id = ANY($1::int[]) AND status = 'collected') AS collected,
+            (SELECT count(*)::int FROM collection_round_stops WHERE round_id = $2 AND drop_off_id IS NOT NULL) AS linked`,
+    [householdIds, roundId],
+  );
+  return row;
+}
+
 describe("collection requests", () => {
   it("a resident asks for a collection for their own household, once per day, and can cancel it", async () => {
     const { forDate, residents } = await scene();
@@ -138,4 +151,43 @@ describe("collection rounds", () => {
     const past = await coordinator.post("/api/collection-rounds/plan").send({ forDate: "2020-01-01" });
     expect(past.status).toBe(400);
   });
+  it("a stop is collected only on its round's day, at a digester still open, by the round's volunteer", async () => {
+    // A later day: not yet.
+    const later = await scene();
+    for (const r of later.residents) await r.client.post("/api/collection-requests").send({ forDate: later.forDate, bucketCount: 2 });
+    const laterPlan = await later.coordinator.post("/api/collection-rounds/plan").send({ forDate: later.forDate });
+    const laterRound = (laterPlan.body.rounds as Round[]).find((x) => x.volunteerId === later.volunteer.person.id)!;
+    const laterSheet = (await later.volunteer.get(`/api/collection-rounds/${laterRound.id}`)).body;
+    const early = await later.volunteer.post(`/api/collection-rounds/${laterRound.id}/stops/${laterSheet.stops[0].requestId}/collected`).send({});
+    expect(early.status).toBe(409);
+    expect(early.body.error.code).toBe("not_yet");
+    expect(early.body.error.message).toContain(later.forDate);
+    expect(await collectionTrace(later.residents.map((r) => r.household.id), laterRound.id)).toEqual({ drop_offs: 0, collected: 0, linked: 0 });
+
+    // Today, but by another volunteer: forbidden, nothing written.
+    const s = await scene(today());
+    for (const r of s.residents) await r.client.post("/api/collection-requests").send({ forDate: s.forDate, bucketCount: 2 });
+    const plan = await s.coordinator.post("/api/collection-rounds/plan").send({ forDate: s.forDate });
+    const round = (plan.body.rounds as Round[]).find((x) => x.volunteerId === s.volunteer.person.id)!;
+    const sheet = (await s.volunteer.get(`/api/collection-rounds/${round.id}`)).body;
+    const stopPath = `/api/collection-rounds/${round.id}/stops/${sheet.stops[0].requestId}/collected`;
+    const households = s.residents.map((r) => r.household.id);
+    const other = await signedInClient(app, { roles: ["resident"], isVolunteer: true, bikeLoadKg: 60 });
+    const theirs = await other.post(stopPath).send({});
+    expect(theirs.status).toBe(403);
+    expect(await collectionTrace(households, round.id)).toEqual({ drop_offs: 0, collected: 0, linked: 0 });
+
+    // Today, the round's volunteer, but the end digester has since gone to rest: ask for a re-plan.
+    await sql(`UPDATE digesters SET status = 'resting', status_reason = 'test' WHERE id = $1 RETURNING id`, [s.digester.id]);
+    const resting = await s.volunteer.post(stopPath).send({});
+    expect(resting.status).toBe(409);
+    expect(resting.body.error.message).toMatch(/re-plan/);
+    expect(await collectionTrace(households, round.id)).toEqual({ drop_offs: 0, collected: 0, linked: 0 });
+
+    // Open again: collected.
+    await sql(`UPDATE digesters SET status = 'active', status_reason = NULL WHERE id = $1 RETURNING id`, [s.digester.id]);
+    expect((await s.volunteer.post(stopPath).send({})).status).toBe(200);
+    expect(await collectionTrace(households, round.id)).toEqual({ drop_offs: 1, collected: 1, linked: 1 });
+  });
+
 });

@@ -232,18 +232,18 @@ export interface LockedStop {
   status: CollectionRequestStatus;
   householdId: number;
   bucketCount: number;
-  /** The round's end digester's bucket density, kg/L. */
-  kgPerLitre: number;
+  /** The round's end digester's status now (it may have gone resting or offline since the plan). */
+  endDigesterStatus: "active" | "resting" | "offline";
 }
 
-/** A stop of a round with its request and the end digester's bucket density; locks the request row. */
+/** A stop of a round with its request and the end digester's status; locks the request row. */
 export async function lockStop(
   transaction: Transaction,
   roundId: number,
   requestId: number,
 ): Promise<LockedStop | undefined> {
   const [stop] = await q<LockedStop>(
-    `SELECT c.status, c.household_id AS "householdId", c.bucket_count AS "bucketCount", d.bucket_kg_per_litre::float8 AS "kgPerLitre"
+    `SELECT c.status, c.household_id AS "householdId", c.bucket_count AS "bucketCount", d.status AS "endDigesterStatus"
        FROM collection_round_stops s JOIN collection_requests c ON c.id = s.request_id
        JOIN collection_rounds r ON r.id = s.round_id JOIN digesters d ON d.id = r.end_digester_id
       WHERE s.round_id = $1 AND s.request_id = $2 FOR UPDATE OF c`,

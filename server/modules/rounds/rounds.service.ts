@@ -217,10 +217,11 @@ export async function roundGeoJson(caller: Caller, id: number): Promise<string> 
 
 /**
  * Marks a stop collected: creates a pending drop-off (buckets of 10 L at planning's 0.5 kg/L,
- * estimated mass, mixed scraps) at the round's end digester for the steward to accept, and marks the request
- * collected, in one transaction. A second call is a 409.
+ * estimated mass, mixed scraps) at the round's end digester for the steward to accept, and marks
+ * the request collected, in one transaction. A second call, a round of a later day or an end
+ * digester now resting or offline is a 409.
  */
-export async function markCollected(caller: Caller, roundId: number, requestId: number): Promise<RoundSheet> {
+export async function markCollected(caller: Caller, roundId: number, requestId: number, now = new Date()): Promise<RoundSheet> {
   return sequelize().transaction(async (transaction) => {
     const round = await loadRound(caller, roundId, transaction, true);
     if (round.status === "cancelled") throw conflict("This round was cancelled.");
@@ -228,6 +229,16 @@ export async function markCollected(caller: Caller, roundId: number, requestId: 
     if (!stop) throw notFound("That stop on this round");
     if (stop.status === "collected") throw conflict("This stop is already marked collected.");
     if (stop.status !== "planned") throw new AppError(409, "not_collectable", `This request is ${stop.status}; it cannot be collected.`);
+    if (round.forDate > localDate(now)) {
+      throw new AppError(409, "not_yet", `This round is on ${round.forDate}; mark its stops collected on that day.`);
+    }
+    if (stop.endDigesterStatus !== "active") {
+      throw new AppError(
+        409,
+        "end_digester_closed",
+        `${round.endDigesterName} is ${stop.endDigesterStatus} now and takes no scraps; ask the coordinator to re-plan this round.`,
+      );
+    }
     const quantities = dropOffQuantities({
       bucketCount: stop.bucketCount,
       bucketLitres: DEFAULT_BUCKET_LITRES,

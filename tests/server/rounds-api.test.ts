@@ -1,7 +1,9 @@
 import { describe, expect, it } from "vitest";
 import { createApp } from "../../server/app";
-import { localDate } from "../../server/lib/clock";
-import { signedInClient, sql } from "../helpers/db";
+import { addDays, localDate } from "../../server/lib/clock";
+import { loadDigestersToday } from "../../server/modules/digesters/digester-state.service";
+import { roomOnDateKg } from "../../server/modules/rounds/rounds.service";
+import { createHousehold, signedInClient, sql } from "../helpers/db";
 import { roundsScene } from "../helpers/rounds-fixtures";
 
 const app = createApp({ requestLogging: false });
@@ -9,6 +11,7 @@ const scene = (forDate?: string) => roundsScene(app, forDate);
 const today = () => localDate(new Date());
 
 type Round = { id: number; volunteerId: number; endDigesterId: number; stopCount: number; loadKg: number };
+type Unplaced = { requestId: number; householdName: string; reason: string; message: string };
 
 /** Everything a collection may have written for a household or a round: drop-offs, request statuses, stop links. */
 async function collectionTrace(householdIds: number[], roundId: number) {
@@ -151,6 +154,73 @@ describe("collection rounds", () => {
     const past = await coordinator.post("/api/collection-rounds/plan").send({ forDate: "2020-01-01" });
     expect(past.status).toBe(400);
   });
+  it("room on a later date counts the drop-offs already pending there", async () => {
+    const forDate = addDays(today(), 3);
+    const { digester, residents, coordinator } = await scene(forDate);
+    // 450 kg of scraps already pending at the digester on that day: more than a 10 m³ digester takes in a day.
+    await sql(
+      `INSERT INTO drop_offs (household_id, digester_id, for_date, bucket_count, bucket_litres, mass_source, fresh_kg, kg_vs, status)
+       VALUES ($1, $2, $3, 15, 60, 'estimated', 450, 81, 'pending')`,
+      [residents[0]!.household.id, digester.id, forDate],
+    );
+    const ids: number[] = [];
+    for (const r of residents) ids.push((await r.client.post("/api/collection-requests").send({ forDate, bucketCount: 2 })).body.id);
+    const plan = await coordinator.post("/api/collection-rounds/plan").send({ forDate });
+    expect(plan.status).toBe(200);
+    expect((plan.body.rounds as Round[]).filter((x) => x.endDigesterId === digester.id)).toEqual([]);
+    const unplaced = plan.body.unplaced as Unplaced[];
+    for (const id of ids) expect(unplaced.find((u) => u.requestId === id)?.reason).toMatch(/^noDigester/);
+  });
+
+  it("a re-plan leaves room for the stops still to collect on rounds it keeps", async () => {
+    const forDate = addDays(today(), 2);
+    const { digester, residents, coordinator, volunteer, spot } = await scene(forDate);
+    for (const r of residents) expect((await r.client.post("/api/collection-requests").send({ forDate, bucketCount: 2 })).status).toBe(201);
+    const plan = await coordinator.post("/api/collection-rounds/plan").send({ forDate });
+    const round = (plan.body.rounds as Round[]).find((x) => x.volunteerId === volunteer.person.id)!;
+    expect(round).toMatchObject({ endDigesterId: digester.id, stopCount: 3, loadKg: 30 });
+
+    // The first stop is collected (as markCollected writes it): the round is kept, 20 kg still to come.
+    const [first] = await sql<{ request_id: number; household_id: number }>(
+      `SELECT s.request_id, c.household_id FROM collection_round_stops s JOIN collection_requests c ON c.id = s.request_id
+        WHERE s.round_id = $1 ORDER BY s.seq LIMIT 1`,
+      [round.id],
+    );
+    const [dropOff] = await sql<{ id: number }>(
+      `INSERT INTO drop_offs (household_id, digester_id, for_date, bucket_count, bucket_litres, mass_source, fresh_kg, kg_vs, status)
+       VALUES ($1, $2, $3, 2, 10, 'estimated', 10, 1.8, 'pending') RETURNING id`,
+      [first!.household_id, digester.id, forDate],
+    );
+    await sql(`UPDATE collection_round_stops SET drop_off_id = $1 WHERE round_id = $2 AND request_id = $3 RETURNING round_id`, [
+      dropOff!.id,
+      round.id,
+      first!.request_id,
+    ]);
+    await sql(`UPDATE collection_requests SET status = 'collected' WHERE id = $1 RETURNING id`, [first!.request_id]);
+
+    // Fill the day so that 5 kg is left once the collected 10 kg and the 20 kg still on the round are counted.
+    const [state] = await loadDigestersToday([digester.id]);
+    const room = roomOnDateKg(state!, forDate, { pendingKg: 0, plannedKg: 0 });
+    expect(room).toBeGreaterThan(45);
+    await sql(
+      `INSERT INTO drop_offs (household_id, digester_id, for_date, weight_kg, mass_source, fresh_kg, kg_vs, status)
+       VALUES ($1, $2, $3, $4, 'weighed', $4, 1, 'pending')`,
+      [residents[2]!.household.id, digester.id, forDate, Math.round((room - 35) * 100) / 100],
+    );
+    // A fourth household asks for 10 kg: it does not fit.
+    const h = await createHousehold({ lat: spot.lat + 0.0015, lng: spot.lng });
+    const [late] = await sql<{ id: number }>(
+      `INSERT INTO collection_requests (household_id, for_date, bucket_count) VALUES ($1, $2, 2) RETURNING id`,
+      [h.id, forDate],
+    );
+    const again = await coordinator.post("/api/collection-rounds/plan").send({ forDate });
+    expect(again.status).toBe(200);
+    const rounds = again.body.rounds as Round[];
+    expect(rounds.find((x) => x.id === round.id)).toMatchObject({ stopCount: 3, loadKg: 30, status: "planned" });
+    expect(rounds.filter((x) => x.endDigesterId === digester.id).map((x) => x.id)).toEqual([round.id]);
+    expect((again.body.unplaced as Unplaced[]).find((u) => u.requestId === late!.id)?.reason).toMatch(/^noDigester/);
+  });
+
   it("a stop is collected only on its round's day, at a digester still open, by the round's volunteer", async () => {
     // A later day: not yet.
     const later = await scene();

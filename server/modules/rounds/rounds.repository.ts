@@ -43,6 +43,34 @@ export async function replaceableRoundIds(forDate: string, transaction?: Transac
   return rows.map((r) => r.id);
 }
 
+export interface ReservedOnDate {
+  digesterId: number;
+  /** Fresh kg of drop-offs waiting for a steward at the digester on the date. */
+  pendingKg: number;
+  /** Fresh kg still to collect on the date's planned rounds ending there (planning's kg per bucket). */
+  plannedKg: number;
+}
+
+/**
+ * What is already headed for each digester on a date: pending drop-offs, and the uncollected
+ * stops of the date's planned rounds (after a re-plan deleted the rounds it replaces, those are
+ * the rounds it keeps). Digesters with neither are left out.
+ */
+export function reservedOnDate(transaction: Transaction, forDate: string, kgPerBucket: number): Promise<ReservedOnDate[]> {
+  return q<ReservedOnDate>(
+    `SELECT digester_id AS "digesterId", sum(pending_kg)::float8 AS "pendingKg", sum(planned_kg)::float8 AS "plannedKg" FROM (
+        SELECT digester_id, fresh_kg AS pending_kg, 0 AS planned_kg FROM drop_offs WHERE for_date = $1 AND status = 'pending'
+        UNION ALL
+        SELECT r.end_digester_id, 0, c.bucket_count * $2::numeric
+          FROM collection_rounds r JOIN collection_round_stops s ON s.round_id = r.id JOIN collection_requests c ON c.id = s.request_id
+         WHERE r.for_date = $1 AND r.status = 'planned' AND c.status = 'planned'
+      ) reserved
+      GROUP BY digester_id`,
+    [forDate, kgPerBucket],
+    transaction,
+  );
+}
+
 /** Puts the planned requests on these rounds back to open. */
 export async function reopenRequestsOf(transaction: Transaction, roundIds: number[]): Promise<void> {
   await sequelize().query(

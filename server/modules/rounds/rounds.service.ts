@@ -4,8 +4,9 @@
  * budget), storing them, the round sheet and its GeoJSON, and marking stops collected (which
  * creates a pending drop-off at the round's end digester for its steward to accept).
  *
- * Room on the date: today = today's feed budget minus what is already pending today; a later
- * date = that day of the weekly-room projection (shared/domain/weekly-room.ts; day 6 beyond a week).
+ * Room on the date: today's feed budget (today) or that day of the weekly-room projection (a later
+ * date; shared/domain/weekly-room.ts, day 6 beyond a week), minus what is already headed there on
+ * that date: pending drop-offs, and the stops still to collect on rounds a re-plan keeps.
  */
 import { performance } from "node:perf_hooks";
 import type { Transaction } from "sequelize";
@@ -28,18 +29,30 @@ import type { Caller } from "../../middleware/handle";
 import { type DigesterToday, loadDigestersToday } from "../digesters/digester-state.service";
 import * as repo from "./rounds.repository";
 
-/** Room for scraps at a digester on `forDate`, fresh kg (see the module comment). */
-export function roomOnDateKg(state: DigesterToday, forDate: string): number {
+/** What is already headed for a digester on the date planned, fresh kg (see repo.reservedOnDate). */
+export interface ReservedKg {
+  /** Drop-offs pending at the digester on that date. */
+  pendingKg: number;
+  /** Stops still to collect on that date's kept rounds ending there. */
+  plannedKg: number;
+}
+
+/** Room for scraps at a digester on `forDate`, fresh kg, after what is already `reserved` there (see the module comment). */
+export function roomOnDateKg(state: DigesterToday, forDate: string, reserved: ReservedKg): number {
   if (state.closed) return 0;
   const k = daysBetween(state.today, forDate);
-  if (k <= 0) return Math.max(0, state.budget.budgetKgScraps - state.pendingTodayKgScraps);
-  const projection = projectWeeklyRoom({
-    limits: state.budget.limits,
-    previous7DaysKgVs: state.budget.limits.weekRamp === null ? null : state.previous7DaysKgVs,
-    fedTodayKgVs: state.committedTodayKgVs,
-    closed: false,
-  });
-  return freshKgFromKgVs(projection.dailyKgVs[Math.min(6, k)] ?? 0);
+  let roomKg: number;
+  if (k <= 0) roomKg = state.budget.budgetKgScraps;
+  else {
+    const projection = projectWeeklyRoom({
+      limits: state.budget.limits,
+      previous7DaysKgVs: state.budget.limits.weekRamp === null ? null : state.previous7DaysKgVs,
+      fedTodayKgVs: state.committedTodayKgVs,
+      closed: false,
+    });
+    roomKg = freshKgFromKgVs(projection.dailyKgVs[Math.min(6, k)] ?? 0);
+  }
+  return Math.max(0, roomKg - reserved.pendingKg - reserved.plannedKg);
 }
 
 /** Planning's density of a collected bucket, kg/L: the drop-off records what the plan reserved (the steward weighs on accepting). */
@@ -69,8 +82,14 @@ export async function planRounds(forDate: string, now = new Date()): Promise<Pla
     const requests = await repo.lockOpenRequests(transaction, forDate);
     const volunteers = await repo.availableVolunteers(transaction);
     const states = await loadDigestersToday(null, { now, transaction });
+    const reserved = new Map((await repo.reservedOnDate(transaction, forDate, COLLECTION_BUCKET_KG)).map((r) => [r.digesterId, r]));
     const digesters = states
-      .map((s) => ({ id: String(s.digester.id), lat: s.digester.lat, lng: s.digester.lng, roomKg: roomOnDateKg(s, forDate) }))
+      .map((s) => ({
+        id: String(s.digester.id),
+        lat: s.digester.lat,
+        lng: s.digester.lng,
+        roomKg: roomOnDateKg(s, forDate, reserved.get(s.digester.id) ?? { pendingKg: 0, plannedKg: 0 }),
+      }))
       .filter((d) => d.roomKg > 0);
     const messages: string[] = [];
     if (requests.length === 0) messages.push(`No open collection requests for ${forDate}.`);

@@ -56,6 +56,15 @@ describe("the coordinator's assignment board", () => {
     expect(await page.getByRole("navigation", { name: "Main" }).getByRole("link", { name: "Assignments" }).count()).toBe(1);
     expect(await axeViolations(page)).toEqual([]);
 
+    // A walking limit that is not a distance is named under its field, and nothing runs.
+    const walk = page.getByLabel("Longest walk allowed (metres, optional)");
+    await walk.fill("far");
+    await page.getByRole("button", { name: "Run a proposal" }).click();
+    await page.getByText("Maximum walk must be a number of metres.").waitFor();
+    expect(await walk.getAttribute("aria-invalid")).toBe("true");
+    expect(await axeViolations(page)).toEqual([]);
+    await walk.fill("");
+
     await page.getByRole("button", { name: "Run a proposal" }).click();
     const table = page.getByRole("region", { name: "Households and their proposed digesters" });
     await table.waitFor();
@@ -107,10 +116,11 @@ describe("collection rounds", () => {
     await signIn(page, DEMO_SIGN_IN_EMAILS.coordinator, "/rounds");
     await page.getByRole("heading", { level: 1, name: "Collection rounds" }).waitFor();
     expect(await axeViolations(page)).toEqual([]);
-    if (!day) return;
-    await page.getByLabel("Day to plan").fill(day.d);
+    // The demo seeds collection requests for the coming days (server/db/seeders/demo-data.ts).
+    expect(day).toBeDefined();
+    await page.getByLabel("Day to plan").fill(day!.d);
     await page.getByRole("button", { name: "Plan rounds" }).click();
-    await page.getByText(new RegExp(`^Planned \\d+ rounds? for ${day.d}`)).waitFor();
+    await page.getByText(new RegExp(`^Planned \\d+ rounds? for ${day!.d}`)).waitFor();
     const rounds = page.getByRole("region", { name: "Collection rounds" });
     await rounds.waitFor();
     expect(await axeViolations(page)).toEqual([]);

@@ -43,7 +43,12 @@ export function AskForCollection() {
             Ask for a collection
           </Button>
         </form>
-        {ask.isSuccess ? <Alert variant="success" title="Asked">A volunteer's round will be planned for {ask.data.forDate}.</Alert> : null}
+        {ask.isSuccess ? (
+          <Alert variant="success" title="Asked">
+            Your collection on {ask.data.forDate} is asked for. The coordinator plans the volunteers' rounds; you get an e-mail the day
+            before when yours is on one.
+          </Alert>
+        ) : null}
         {ask.error && Object.keys(fields).length === 0 ? <Alert variant="danger" title="Not asked">{ask.error.message}</Alert> : null}
         {live.length > 0 ? (
           <ul className="flex flex-col gap-2" aria-label="Your collections">
@@ -58,6 +63,11 @@ export function AskForCollection() {
               </li>
             ))}
           </ul>
+        ) : null}
+        {cancel.error ? (
+          <Alert variant="danger" title="Not cancelled">
+            {cancel.error.message}
+          </Alert>
         ) : null}
       </CardContent>
     </Card>

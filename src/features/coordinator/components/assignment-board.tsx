@@ -8,7 +8,7 @@ import {
   tableFeatures,
   useTable,
 } from "@tanstack/react-table";
-import type { Proposal, ProposalAssignment } from "@shared/schemas/assignments";
+import { type Proposal, type ProposalAssignment, ProposalRequestSchema } from "@shared/schemas/assignments";
 import {
   Alert,
   Badge,
@@ -56,6 +56,7 @@ const kg1 = (x: number) => `${x.toFixed(1)} kg`;
  */
 export function AssignmentBoard() {
   const [maxWalk, setMaxWalk] = useState("");
+  const [walkError, setWalkError] = useState<string | null>(null);
   const [excluded, setExcluded] = useState<number[]>([]);
   const [pins, setPins] = useState<Map<number, number>>(new Map());
   const [unpins, setUnpins] = useState<number[]>([]);
@@ -69,9 +70,20 @@ export function AssignmentBoard() {
   const run = (next?: { excluded?: number[]; pins?: Map<number, number>; unpins?: number[] }) => {
     setDone(null);
     apply.reset();
-    const walk = maxWalk.trim() === "" ? null : Number(maxWalk);
+    // The same rule as the server's (ProposalRequestSchema): empty, or metres above 0 and up to 50 km.
+    const text = maxWalk.trim().replace(",", ".");
+    let walk: number | null = null;
+    if (text !== "") {
+      const parsed = ProposalRequestSchema.shape.maxWalkM.safeParse(Number(text));
+      if (!parsed.success) {
+        setWalkError(parsed.error.issues[0]?.message ?? "Give the longest walk in metres, or leave it empty.");
+        return;
+      }
+      walk = parsed.data ?? null;
+    }
+    setWalkError(null);
     propose.mutate({
-      maxWalkM: walk !== null && Number.isFinite(walk) && walk > 0 ? walk : null,
+      maxWalkM: walk,
       excludeDigesterIds: next?.excluded ?? excluded,
       pins: [...(next?.pins ?? pins).entries()].map(([householdId, digesterId]) => ({ householdId, digesterId })),
       unpins: next?.unpins ?? unpins,
@@ -201,7 +213,12 @@ export function AssignmentBoard() {
           run();
         }}
       >
-        <Field label="Longest walk allowed (metres, optional)" hint="Leave empty for no limit." className="w-72">
+        <Field
+          label="Longest walk allowed (metres, optional)"
+          hint="Leave empty for no limit."
+          error={walkError ?? (propose.error instanceof ApiError ? propose.error.fields.maxWalkM : undefined)}
+          className="w-72"
+        >
           <Input inputMode="numeric" value={maxWalk} onChange={(e) => setMaxWalk(e.target.value)} autoComplete="off" />
         </Field>
         <Button type="submit" loading={propose.isPending}>

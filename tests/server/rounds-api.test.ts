@@ -1,5 +1,7 @@
+import { QueryTypes } from "sequelize";
 import { describe, expect, it } from "vitest";
 import { createApp } from "../../server/app";
+import { sequelize } from "../../server/db/sequelize";
 import { addDays, localDate } from "../../server/lib/clock";
 import { loadDigestersToday } from "../../server/modules/digesters/digester-state.service";
 import { roomOnDateKg } from "../../server/modules/rounds/rounds.service";
@@ -12,6 +14,14 @@ const today = () => localDate(new Date());
 
 type Round = { id: number; volunteerId: number; endDigesterId: number; stopCount: number; loadKg: number };
 type Unplaced = { requestId: number; householdName: string; reason: string; message: string };
+
+/** The request ids on each of these rounds (from the database). */
+async function stopsOf(roundIds: number[]) {
+  return sql<{ round_id: number; request_id: number }>(
+    `SELECT round_id, request_id FROM collection_round_stops WHERE round_id = ANY($1::int[])`,
+    [roundIds],
+  );
+}
 
 /** Everything a collection may have written for a household or a round: drop-offs, request statuses, stop links. */
 async function collectionTrace(householdIds: number[], roundId: number) {
@@ -219,6 +229,66 @@ describe("collection rounds", () => {
     expect(rounds.find((x) => x.id === round.id)).toMatchObject({ stopCount: 3, loadKg: 30, status: "planned" });
     expect(rounds.filter((x) => x.endDigesterId === digester.id).map((x) => x.id)).toEqual([round.id]);
     expect((again.body.unplaced as Unplaced[]).find((u) => u.requestId === late!.id)?.reason).toMatch(/^noDigester/);
+  });
+
+  it("a re-plan waits for a stop being marked collected and keeps that round", async () => {
+    const { forDate, residents, coordinator, volunteer, digester } = await scene();
+    for (const r of residents) expect((await r.client.post("/api/collection-requests").send({ forDate, bucketCount: 2 })).status).toBe(201);
+    const plan = await coordinator.post("/api/collection-rounds/plan").send({ forDate });
+    const round = (plan.body.rounds as Round[]).find((x) => x.volunteerId === volunteer.person.id)!;
+    const [first] = await sql<{ request_id: number; household_id: number }>(
+      `SELECT s.request_id, c.household_id FROM collection_round_stops s JOIN collection_requests c ON c.id = s.request_id
+        WHERE s.round_id = $1 ORDER BY s.seq LIMIT 1`,
+      [round.id],
+    );
+
+    // A collection in flight, taking its locks as markCollected does (the round, then the request), not yet committed.
+    const t = await sequelize().transaction();
+    let replanning: Promise<{ status: number; body: { rounds: Round[] } }> | undefined;
+    try {
+      const run = async (query: string, bind: unknown[]) =>
+        (await sequelize().query(query, { bind, transaction: t, type: QueryTypes.SELECT })) as Record<string, number>[];
+      const [{ pid }] = (await run(`SELECT pg_backend_pid() AS pid`, [])) as [{ pid: number }];
+      await run(`SELECT id FROM collection_rounds WHERE id = $1 FOR UPDATE`, [round.id]);
+      await run(`SELECT id FROM collection_requests WHERE id = $1 FOR UPDATE`, [first!.request_id]);
+      const [{ id: dropOffId }] = (await run(
+        `INSERT INTO drop_offs (household_id, digester_id, for_date, bucket_count, bucket_litres, mass_source, fresh_kg, kg_vs, status)
+         VALUES ($1, $2, $3, 2, 10, 'estimated', 10, 1.8, 'pending') RETURNING id`,
+        [first!.household_id, digester.id, forDate],
+      )) as [{ id: number }];
+      await run(`UPDATE collection_round_stops SET drop_off_id = $1 WHERE round_id = $2 AND request_id = $3 RETURNING round_id`, [
+        dropOffId,
+        round.id,
+        first!.request_id,
+      ]);
+      await run(`UPDATE collection_requests SET status = 'collected' WHERE id = $1 RETURNING id`, [first!.request_id]);
+
+      replanning = coordinator.post("/api/collection-rounds/plan").send({ forDate }).then((res) => res);
+      // Wait until the re-plan is blocked by the collection's locks.
+      const deadline = Date.now() + 10_000;
+      for (;;) {
+        const [{ waiting }] = (await sql<{ waiting: number }>(
+          `SELECT count(*)::int AS waiting FROM pg_stat_activity WHERE $1::int = ANY(pg_blocking_pids(pid))`,
+          [pid],
+        )) as [{ waiting: number }];
+        if (waiting > 0) break;
+        if (Date.now() > deadline) throw new Error("The re-plan never waited for the collection's locks.");
+        await new Promise((resolve) => setTimeout(resolve, 20));
+      }
+    } finally {
+      await t.commit();
+    }
+    const again = await replanning!;
+    expect(again.status).toBe(200);
+    // The round with a collected stop is kept whole: the collection is not lost, its other stops still ride with it.
+    expect(again.body.rounds.find((x) => x.id === round.id)).toMatchObject({ stopCount: 3 });
+    const stops = await stopsOf([round.id]);
+    expect(stops).toHaveLength(3);
+    const statuses = await sql<{ status: string }>(
+      `SELECT c.status FROM collection_round_stops s JOIN collection_requests c ON c.id = s.request_id WHERE s.round_id = $1 ORDER BY s.seq`,
+      [round.id],
+    );
+    expect(statuses.map((x) => x.status)).toEqual(["collected", "planned", "planned"]);
   });
 
   it("a stop is collected only on its round's day, at a digester still open, by the round's volunteer", async () => {

@@ -1,7 +1,7 @@
 /**
  * Collection rounds' SQL: one statement per function, plain objects out. The service owns the
- * transactions and the order of the locks (the date's advisory lock, then the open requests; the
- * round row, then its stop's request).
+ * transactions and the order of the locks (planning: the date's advisory lock, then the date's
+ * planned rounds, then the requests; marking collected: the round row, then its stop's request).
  */
 import { QueryTypes, type Transaction } from "sequelize";
 import type { MassMethod } from "../../../shared/domain/scraps";
@@ -32,12 +32,33 @@ export async function lockDate(transaction: Transaction, forDate: string): Promi
   });
 }
 
-/** Ids of the date's planned rounds with nothing collected yet (a re-plan replaces them). */
-export async function replaceableRoundIds(forDate: string, transaction?: Transaction): Promise<number[]> {
+/**
+ * Locks the date's planned rounds (after the date's advisory lock, before any request: the same
+ * order as marking a stop collected, round then request); returns their ids. A collection in
+ * flight holds its round's row, so this waits for it to commit.
+ */
+export async function lockPlannedRounds(transaction: Transaction, forDate: string): Promise<number[]> {
   const rows = await q<{ id: number }>(
-    `SELECT r.id FROM collection_rounds r WHERE r.for_date = $1 AND r.status = 'planned'
-       AND NOT EXISTS (SELECT 1 FROM collection_round_stops s WHERE s.round_id = r.id AND s.drop_off_id IS NOT NULL)`,
+    `SELECT id FROM collection_rounds WHERE for_date = $1 AND status = 'planned' ORDER BY id FOR UPDATE`,
     [forDate],
+    transaction,
+  );
+  return rows.map((r) => r.id);
+}
+
+/**
+ * Of these (locked) rounds, those with nothing collected yet (a re-plan replaces them). Run after
+ * {@link lockPlannedRounds}: under READ COMMITTED this statement's snapshot sees collections that
+ * committed while the locks were awaited.
+ */
+export async function replaceableRoundIds(transaction: Transaction, lockedIds: number[]): Promise<number[]> {
+  if (lockedIds.length === 0) return [];
+  const rows = await q<{ id: number }>(
+    `SELECT r.id FROM collection_rounds r WHERE r.id = ANY($1::int[]) AND r.status = 'planned'
+       AND NOT EXISTS (SELECT 1 FROM collection_round_stops s JOIN collection_requests c ON c.id = s.request_id
+                        WHERE s.round_id = r.id AND (s.drop_off_id IS NOT NULL OR c.status = 'collected'))
+     ORDER BY r.id`,
+    [lockedIds],
     transaction,
   );
   return rows.map((r) => r.id);

@@ -74,7 +74,8 @@ export async function planRounds(forDate: string, now = new Date()): Promise<Pla
   if (forDate < today) throw badRequest("Plan today or a later day.", { forDate: "Today or later." });
   return sequelize().transaction(async (transaction) => {
     await repo.lockDate(transaction, forDate);
-    const oldIds = await repo.replaceableRoundIds(forDate, transaction);
+    // Rounds first, then requests (as markCollected); the re-check sees collections that committed meanwhile.
+    const oldIds = await repo.replaceableRoundIds(transaction, await repo.lockPlannedRounds(transaction, forDate));
     if (oldIds.length > 0) {
       await repo.reopenRequestsOf(transaction, oldIds);
       await repo.deleteRounds(transaction, oldIds);

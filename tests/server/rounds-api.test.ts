@@ -330,4 +330,23 @@ describe("collection rounds", () => {
     expect(await collectionTrace(households, round.id)).toEqual({ drop_offs: 1, collected: 1, linked: 1 });
   });
 
+  it("GeoJSON leaves out the route when fewer than two positions are left", async () => {
+    const { forDate, residents, coordinator, volunteer } = await scene();
+    const ids: number[] = [];
+    for (const r of residents) ids.push((await r.client.post("/api/collection-requests").send({ forDate, bucketCount: 2 })).body.id);
+    const plan = await coordinator.post("/api/collection-rounds/plan").send({ forDate });
+    const round = (plan.body.rounds as Round[]).find((x) => x.volunteerId === volunteer.person.id)!;
+    // The volunteer's start point is removed and every household cancels: only the end digester is left.
+    await sql(`UPDATE people SET start_lat = NULL, start_lng = NULL WHERE id = $1 RETURNING id`, [volunteer.person.id]);
+    for (const [i, r] of residents.entries()) expect((await r.client.post(`/api/collection-requests/${ids[i]}/cancel`).send({})).status).toBe(200);
+    const geo = await coordinator.get(`/api/collection-rounds/${round.id}/geojson`);
+    expect(geo.status).toBe(200);
+    const fc = JSON.parse(geo.text);
+    expect(fc.type).toBe("FeatureCollection");
+    for (const f of fc.features) {
+      // RFC 7946 §3.1.4: a LineString has two or more positions.
+      if (f.geometry.type === "LineString") expect(f.geometry.coordinates.length).toBeGreaterThanOrEqual(2);
+    }
+    expect(fc.features.map((f: { properties: { kind: string } }) => f.properties.kind)).toEqual(["endDigester"]);
+  });
 });

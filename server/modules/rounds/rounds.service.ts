@@ -207,7 +207,7 @@ export async function roundSheet(caller: Caller, id: number, transaction?: Trans
 /** RFC 7946 FeatureCollection: the route as a LineString, a Point per stop and one for the end digester ([lng, lat]). */
 export async function roundGeoJson(caller: Caller, id: number): Promise<string> {
   const sheet = await roundSheet(caller, id);
-  const line = [
+  const line: number[][] = [
     ...(sheet.start ? [[sheet.start.lng, sheet.start.lat]] : []),
     ...sheet.stops.map((s) => [s.lng, s.lat]),
     [sheet.endDigester.lng, sheet.endDigester.lat],
@@ -215,11 +215,16 @@ export async function roundGeoJson(caller: Caller, id: number): Promise<string> 
   const collection = {
     type: "FeatureCollection",
     features: [
-      {
-        type: "Feature",
-        geometry: { type: "LineString", coordinates: line },
-        properties: { kind: "route", roundId: sheet.id, forDate: sheet.forDate, volunteer: sheet.volunteerName, totalM: sheet.totalM },
-      },
+      // RFC 7946 §3.1.4: a LineString has two or more positions; a round left with fewer has no route.
+      ...(line.length >= 2
+        ? [
+            {
+              type: "Feature",
+              geometry: { type: "LineString", coordinates: line },
+              properties: { kind: "route", roundId: sheet.id, forDate: sheet.forDate, volunteer: sheet.volunteerName, totalM: sheet.totalM },
+            },
+          ]
+        : []),
       ...sheet.stops.map((s) => ({
         type: "Feature",
         geometry: { type: "Point", coordinates: [s.lng, s.lat] },

@@ -151,19 +151,67 @@ describe("collection rounds", () => {
 
   it("re-planning replaces untouched rounds; a date without volunteers' room reports why", async () => {
     const { forDate, residents, coordinator, volunteer } = await scene();
-    await residents[0]!.client.post("/api/collection-requests").send({ forDate, bucketCount: 20 });
+    const requestIds: number[] = [];
+    // The heavy one: 20 buckets × 5 kg = 100 kg, more than the scene volunteer's 40 kg bike.
+    requestIds.push((await residents[0]!.client.post("/api/collection-requests").send({ forDate, bucketCount: 20 })).body.id);
+    for (const r of residents.slice(1)) requestIds.push((await r.client.post("/api/collection-requests").send({ forDate, bucketCount: 2 })).body.id);
+    const heavyId = requestIds[0]!;
     const plan = await coordinator.post("/api/collection-rounds/plan").send({ forDate });
     expect(plan.status).toBe(200);
-    // 20 buckets × 5 kg = 100 kg, more than the 40 kg bike: reported, not planned (other tests' volunteers may carry more).
-    const mine = plan.body.rounds.filter((x: { volunteerId: number }) => x.volunteerId === volunteer.person.id);
-    const unplaced = plan.body.unplaced.find((u: { householdName: string }) => u.householdName === residents[0]!.household.name);
-    if (unplaced) expect(unplaced.message).toMatch(/cargo bike|room|volunteer/);
-    else expect(mine).toHaveLength(0);
+    const oldIds = (plan.body.rounds as Round[]).map((x) => x.id);
+    expect(oldIds.length).toBeGreaterThan(0);
+    // The scene volunteer rides the two light stops.
+    expect((plan.body.rounds as Round[]).filter((x) => x.volunteerId === volunteer.person.id)).toHaveLength(1);
+
     const again = await coordinator.post("/api/collection-rounds/plan").send({ forDate });
     expect(again.status).toBe(200);
+    const rounds = again.body.rounds as Round[];
+    const unplaced = again.body.unplaced as Unplaced[];
+    // Nothing was collected: every old round was replaced, in the answer and in the database.
+    for (const id of oldIds) expect(rounds.map((x) => x.id)).not.toContain(id);
+    expect(await sql(`SELECT id FROM collection_rounds WHERE id = ANY($1::int[])`, [oldIds])).toEqual([]);
+
+    // Every request of ours is on exactly one of the date's rounds, or reported unplaced (and then open).
+    const stops = await sql<{ round_id: number; request_id: number }>(
+      `SELECT round_id, request_id FROM collection_round_stops WHERE request_id = ANY($1::int[])`,
+      [requestIds],
+    );
+    const statuses = new Map(
+      (await sql<{ id: number; status: string }>(`SELECT id, status FROM collection_requests WHERE id = ANY($1::int[])`, [requestIds])).map((r) => [
+        r.id,
+        r.status,
+      ]),
+    );
+    for (const id of requestIds) {
+      const on = stops.filter((s) => s.request_id === id);
+      const isUnplaced = unplaced.some((u) => u.requestId === id);
+      expect(on.length + (isUnplaced ? 1 : 0), `request ${id}`).toBe(1);
+      if (isUnplaced) expect(statuses.get(id)).toBe("open");
+      else {
+        expect(statuses.get(id)).toBe("planned");
+        expect(rounds.map((x) => x.id)).toContain(on[0]!.round_id);
+      }
+    }
+    const mine = rounds.filter((x) => x.volunteerId === volunteer.person.id);
+    expect(mine).toHaveLength(1);
+    expect(mine[0]).toMatchObject({ stopCount: 2, loadKg: 20 });
+    // The heavy request is never on the 40 kg bike: reported, or (other tests' volunteers) on a bike that carries 100 kg.
+    const heavyOn = stops.find((s) => s.request_id === heavyId);
+    expect(heavyOn?.round_id).not.toBe(mine[0]!.id);
+    if (heavyOn) {
+      const round = rounds.find((x) => x.id === heavyOn.round_id)!;
+      const [bike] = await sql<{ bike_load_kg: number }>(`SELECT bike_load_kg::float8 AS bike_load_kg FROM people WHERE id = $1`, [round.volunteerId]);
+      expect(bike!.bike_load_kg).toBeGreaterThanOrEqual(100);
+    } else {
+      const u = unplaced.find((x) => x.requestId === heavyId)!;
+      expect(u.householdName).toBe(residents[0]!.household.name);
+      expect(u.message).toMatch(/cargo bike|room|volunteer/);
+      expect(statuses.get(heavyId)).toBe("open");
+    }
     const past = await coordinator.post("/api/collection-rounds/plan").send({ forDate: "2020-01-01" });
     expect(past.status).toBe(400);
   });
+
   it("room on a later date counts the drop-offs already pending there", async () => {
     const forDate = addDays(today(), 3);
     const { digester, residents, coordinator } = await scene(forDate);

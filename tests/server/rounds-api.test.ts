@@ -212,6 +212,25 @@ describe("collection rounds", () => {
     expect(past.status).toBe(400);
   });
 
+  it("a plan of several rounds stores each round with its own stops, in order", async () => {
+    const a = await scene();
+    const b = await scene(a.forDate);
+    for (const [i, r] of [...a.residents, ...b.residents].entries()) {
+      expect((await r.client.post("/api/collection-requests").send({ forDate: a.forDate, bucketCount: 1 + (i % 3) })).status).toBe(201);
+    }
+    const plan = await a.coordinator.post("/api/collection-rounds/plan").send({ forDate: a.forDate });
+    expect(plan.status).toBe(200);
+    for (const s of [a, b]) {
+      const round = (plan.body.rounds as Round[]).find((x) => x.volunteerId === s.volunteer.person.id)!;
+      expect(round).toMatchObject({ endDigesterId: s.digester.id, stopCount: 3 });
+      const sheet = (await s.volunteer.get(`/api/collection-rounds/${round.id}`)).body;
+      expect(sheet.stops.map((x: { householdId: number }) => x.householdId)).toEqual(s.residents.map((r) => r.household.id));
+      expect(sheet.stops.map((x: { seq: number }) => x.seq)).toEqual([1, 2, 3]);
+      expect(round.loadKg).toBe(sheet.stops.reduce((sum: number, x: { bucketCount: number }) => sum + x.bucketCount * 5, 0));
+      expect(sheet.stops.every((x: { status: string }) => x.status === "planned")).toBe(true);
+    }
+  });
+
   it("room on a later date counts the drop-offs already pending there", async () => {
     const forDate = addDays(today(), 3);
     const { digester, residents, coordinator } = await scene(forDate);

@@ -145,33 +145,54 @@ export function availableVolunteers(transaction?: Transaction): Promise<Voluntee
   );
 }
 
-/** Inserts a planned round; returns its id. */
-export async function insertRound(
-  transaction: Transaction,
-  round: { forDate: string; volunteerId: number; endDigesterId: number; totalM: number; loadKg: number },
-): Promise<number> {
-  const [row] = await q<{ id: number }>(
-    `INSERT INTO collection_rounds (for_date, volunteer_id, end_digester_id, total_m, load_kg) VALUES ($1, $2, $3, $4, $5) RETURNING id`,
-    [round.forDate, round.volunteerId, round.endDigesterId, round.totalM, round.loadKg],
-    transaction,
-  );
-  return row!.id;
+export interface NewRound {
+  volunteerId: number;
+  endDigesterId: number;
+  totalM: number;
+  loadKg: number;
 }
 
-/** Adds a request to a round as its `seq`-th stop (from 1). */
-export async function insertStop(
-  transaction: Transaction,
-  roundId: number,
-  requestId: number,
-  seq: number,
-): Promise<void> {
-  await sequelize().query(`INSERT INTO collection_round_stops (round_id, request_id, seq) VALUES ($1, $2, $3)`, {
-    bind: [roundId, requestId, seq],
+/** Inserts a date's planned rounds in one statement; returns their ids in the same order. */
+export async function insertRounds(transaction: Transaction, forDate: string, rounds: NewRound[]): Promise<number[]> {
+  if (rounds.length === 0) return [];
+  // Ids are drawn per input row first, so each id is tied to its row whatever order the insert runs in.
+  const rows = await q<{ id: number }>(
+    `WITH input AS (
+        SELECT * FROM unnest($2::int[], $3::int[], $4::numeric[], $5::numeric[]) WITH ORDINALITY
+          AS u(volunteer_id, end_digester_id, total_m, load_kg, ord)),
+      ids AS MATERIALIZED (SELECT ord, nextval(pg_get_serial_sequence('collection_rounds', 'id'))::int AS id FROM input),
+      inserted AS (
+        INSERT INTO collection_rounds (id, for_date, volunteer_id, end_digester_id, total_m, load_kg)
+        SELECT ids.id, $1::date, input.volunteer_id, input.end_digester_id, input.total_m, input.load_kg
+          FROM input JOIN ids USING (ord)
+        RETURNING id)
+     SELECT ids.id FROM ids JOIN inserted USING (id) ORDER BY ids.ord`,
+    [
+      forDate,
+      rounds.map((r) => r.volunteerId),
+      rounds.map((r) => r.endDigesterId),
+      rounds.map((r) => r.totalM),
+      rounds.map((r) => r.loadKg),
+    ],
     transaction,
-  });
+  );
+  return rows.map((r) => r.id);
+}
+
+/** Adds stops to rounds in one statement: each request as its round's `seq`-th stop (from 1). */
+export async function insertStops(
+  transaction: Transaction,
+  stops: { roundId: number; requestId: number; seq: number }[],
+): Promise<void> {
+  if (stops.length === 0) return;
+  await sequelize().query(
+    `INSERT INTO collection_round_stops (round_id, request_id, seq) SELECT * FROM unnest($1::int[], $2::int[], $3::int[])`,
+    { bind: [stops.map((s) => s.roundId), stops.map((s) => s.requestId), stops.map((s) => s.seq)], transaction },
+  );
 }
 
 export async function markRequestsPlanned(transaction: Transaction, requestIds: number[]): Promise<void> {
+  if (requestIds.length === 0) return;
   await sequelize().query(
     `UPDATE collection_requests SET status = 'planned', updated_at = now() WHERE id = ANY($1::int[])`,
     {

@@ -106,19 +106,27 @@ export async function planRounds(forDate: string, now = new Date()): Promise<Pla
     const solveMs = performance.now() - started;
     for (const m of plan.messages) messages.push(m);
 
-    for (const round of plan.rounds) {
-      const roundId = await repo.insertRound(transaction, {
-        forDate,
+    // Three statements whatever the number of rounds and stops.
+    const roundIds = await repo.insertRounds(
+      transaction,
+      forDate,
+      plan.rounds.map((round) => ({
         volunteerId: Number(round.volunteerId),
         endDigesterId: Number(round.endDigesterId),
         totalM: round.lengthM,
         loadKg: round.loadKg,
-      });
-      for (const [i, stop] of round.stops.entries()) {
-        await repo.insertStop(transaction, roundId, Number(stop.householdId), i + 1);
-      }
-      await repo.markRequestsPlanned(transaction, round.stops.map((s) => Number(s.householdId)));
-    }
+      })),
+    );
+    await repo.insertStops(
+      transaction,
+      plan.rounds.flatMap((round, r) =>
+        round.stops.map((stop, i) => ({ roundId: roundIds[r]!, requestId: Number(stop.householdId), seq: i + 1 })),
+      ),
+    );
+    await repo.markRequestsPlanned(
+      transaction,
+      plan.rounds.flatMap((round) => round.stops.map((s) => Number(s.householdId))),
+    );
     const names = new Map(requests.map((r) => [String(r.id), r.householdName]));
     const rounds = await repo.roundSummariesOn(forDate, transaction);
     return {

@@ -12,13 +12,13 @@ const app = createApp({ requestLogging: false });
 const scene = (forDate?: string) => roundsScene(app, forDate);
 const today = () => localDate(new Date());
 
-type Round = { id: number; volunteerId: number; endDigesterId: number; stopCount: number; loadKg: number };
+type Round = { id: number; volunteerId: number; endDigesterId: number; stopCount: number; loadKg: number; status: string; collectedCount: number };
 type Unplaced = { requestId: number; householdName: string; reason: string; message: string };
 
-/** The request ids on each of these rounds (from the database). */
+/** The stops of these rounds, by round and seq (from the database). */
 async function stopsOf(roundIds: number[]) {
   return sql<{ round_id: number; request_id: number }>(
-    `SELECT round_id, request_id FROM collection_round_stops WHERE round_id = ANY($1::int[])`,
+    `SELECT round_id, request_id FROM collection_round_stops WHERE round_id = ANY($1::int[]) ORDER BY round_id, seq`,
     [roundIds],
   );
 }
@@ -158,10 +158,9 @@ describe("collection rounds", () => {
     const heavyId = requestIds[0]!;
     const plan = await coordinator.post("/api/collection-rounds/plan").send({ forDate });
     expect(plan.status).toBe(200);
-    const oldIds = (plan.body.rounds as Round[]).map((x) => x.id);
+    // The date's untouched rounds (other tests' rounds on this day may be cancelled or have something collected: those stay).
+    const oldIds = (plan.body.rounds as Round[]).filter((x) => x.status === "planned" && x.collectedCount === 0).map((x) => x.id);
     expect(oldIds.length).toBeGreaterThan(0);
-    // The scene volunteer rides the two light stops.
-    expect((plan.body.rounds as Round[]).filter((x) => x.volunteerId === volunteer.person.id)).toHaveLength(1);
 
     const again = await coordinator.post("/api/collection-rounds/plan").send({ forDate });
     expect(again.status).toBe(200);
@@ -192,13 +191,12 @@ describe("collection rounds", () => {
         expect(rounds.map((x) => x.id)).toContain(on[0]!.round_id);
       }
     }
-    const mine = rounds.filter((x) => x.volunteerId === volunteer.person.id);
-    expect(mine).toHaveLength(1);
-    expect(mine[0]).toMatchObject({ stopCount: 2, loadKg: 20 });
     // The heavy request is never on the 40 kg bike: reported, or (other tests' volunteers) on a bike that carries 100 kg.
     const heavyOn = stops.find((s) => s.request_id === heavyId);
-    expect(heavyOn?.round_id).not.toBe(mine[0]!.id);
+    const mine = rounds.filter((x) => x.volunteerId === volunteer.person.id).map((x) => x.id);
+    expect(mine.length).toBeGreaterThan(0);
     if (heavyOn) {
+      expect(mine).not.toContain(heavyOn.round_id);
       const round = rounds.find((x) => x.id === heavyOn.round_id)!;
       const [bike] = await sql<{ bike_load_kg: number }>(`SELECT bike_load_kg::float8 AS bike_load_kg FROM people WHERE id = $1`, [round.volunteerId]);
       expect(bike!.bike_load_kg).toBeGreaterThanOrEqual(100);
@@ -215,19 +213,38 @@ describe("collection rounds", () => {
   it("a plan of several rounds stores each round with its own stops, in order", async () => {
     const a = await scene();
     const b = await scene(a.forDate);
+    const requestIds: number[] = [];
     for (const [i, r] of [...a.residents, ...b.residents].entries()) {
-      expect((await r.client.post("/api/collection-requests").send({ forDate: a.forDate, bucketCount: 1 + (i % 3) })).status).toBe(201);
+      const res = await r.client.post("/api/collection-requests").send({ forDate: a.forDate, bucketCount: 1 + (i % 3) });
+      expect(res.status).toBe(201);
+      requestIds.push(res.body.id);
     }
     const plan = await a.coordinator.post("/api/collection-rounds/plan").send({ forDate: a.forDate });
     expect(plan.status).toBe(200);
-    for (const s of [a, b]) {
-      const round = (plan.body.rounds as Round[]).find((x) => x.volunteerId === s.volunteer.person.id)!;
-      expect(round).toMatchObject({ endDigesterId: s.digester.id, stopCount: 3 });
-      const sheet = (await s.volunteer.get(`/api/collection-rounds/${round.id}`)).body;
-      expect(sheet.stops.map((x: { householdId: number }) => x.householdId)).toEqual(s.residents.map((r) => r.household.id));
-      expect(sheet.stops.map((x: { seq: number }) => x.seq)).toEqual([1, 2, 3]);
+    const rounds = (plan.body.rounds as Round[]).filter((x) => x.status === "planned" && x.collectedCount === 0);
+    for (const s of [a, b]) expect(rounds.map((x) => x.volunteerId)).toContain(s.volunteer.person.id);
+    // Each new round's stops are its own: seq 1…n, as many as it says, weighing what it says.
+    for (const round of rounds) {
+      const sheet = (await a.coordinator.get(`/api/collection-rounds/${round.id}`)).body;
+      expect(sheet.stops.map((x: { seq: number }) => x.seq)).toEqual(Array.from({ length: round.stopCount }, (_, i) => i + 1));
       expect(round.loadKg).toBe(sheet.stops.reduce((sum: number, x: { bucketCount: number }) => sum + x.bucketCount * 5, 0));
       expect(sheet.stops.every((x: { status: string }) => x.status === "planned")).toBe(true);
+    }
+    // Each of our requests is on one round, or reported.
+    const on = await sql<{ request_id: number }>(`SELECT request_id FROM collection_round_stops WHERE request_id = ANY($1::int[])`, [requestIds]);
+    for (const id of requestIds) {
+      const placed = on.filter((x) => x.request_id === id).length;
+      const reported = (plan.body.unplaced as Unplaced[]).filter((u) => u.requestId === id).length;
+      expect(placed + reported, `request ${id}`).toBe(1);
+    }
+    // The households of a scene are planned on its own volunteer's round, nearest first.
+    for (const s of [a, b]) {
+      const round = rounds.find((x) => x.volunteerId === s.volunteer.person.id)!;
+      const sheet = (await s.volunteer.get(`/api/collection-rounds/${round.id}`)).body;
+      const ours = s.residents.map((r) => r.household.id);
+      const order = sheet.stops.map((x: { householdId: number }) => x.householdId).filter((id: number) => ours.includes(id));
+      expect(order.length).toBeGreaterThan(0);
+      expect(order).toEqual(ours.filter((id) => order.includes(id)));
     }
   });
 
@@ -303,6 +320,8 @@ describe("collection rounds", () => {
     for (const r of residents) expect((await r.client.post("/api/collection-requests").send({ forDate, bucketCount: 2 })).status).toBe(201);
     const plan = await coordinator.post("/api/collection-rounds/plan").send({ forDate });
     const round = (plan.body.rounds as Round[]).find((x) => x.volunteerId === volunteer.person.id)!;
+    const before = await stopsOf([round.id]);
+    expect(before.length).toBeGreaterThan(1);
     const [first] = await sql<{ request_id: number; household_id: number }>(
       `SELECT s.request_id, c.household_id FROM collection_round_stops s JOIN collection_requests c ON c.id = s.request_id
         WHERE s.round_id = $1 ORDER BY s.seq LIMIT 1`,
@@ -348,14 +367,13 @@ describe("collection rounds", () => {
     const again = await replanning!;
     expect(again.status).toBe(200);
     // The round with a collected stop is kept whole: the collection is not lost, its other stops still ride with it.
-    expect(again.body.rounds.find((x) => x.id === round.id)).toMatchObject({ stopCount: 3 });
-    const stops = await stopsOf([round.id]);
-    expect(stops).toHaveLength(3);
+    expect(again.body.rounds.find((x) => x.id === round.id)).toMatchObject({ stopCount: before.length, collectedCount: 1 });
+    expect(await stopsOf([round.id])).toEqual(before);
     const statuses = await sql<{ status: string }>(
       `SELECT c.status FROM collection_round_stops s JOIN collection_requests c ON c.id = s.request_id WHERE s.round_id = $1 ORDER BY s.seq`,
       [round.id],
     );
-    expect(statuses.map((x) => x.status)).toEqual(["collected", "planned", "planned"]);
+    expect(statuses.map((x) => x.status)).toEqual(["collected", ...before.slice(1).map(() => "planned")]);
   });
 
   it("a stop is collected only on its round's day, at a digester still open, by the round's volunteer", async () => {

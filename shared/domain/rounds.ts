@@ -87,7 +87,20 @@ export interface CollectionRoundsOptions {
    * {@link DEFAULT_MAX_END_LEG_M}.
    */
   readonly maxEndLegM?: number;
+  /**
+   * Longest ride from a volunteer's start to a first stop, or between two
+   * stops, metres; longer legs are never ridden. Default
+   * {@link DEFAULT_MAX_LEG_M}.
+   */
+  readonly maxLegM?: number;
 }
+
+/**
+ * Default cap on the other legs of a round, metres [judgement: the same
+ * neighbourhood scale as {@link DEFAULT_MAX_END_LEG_M}; stops further apart
+ * belong to different rounds, or to another day].
+ */
+export const DEFAULT_MAX_LEG_M = 5000;
 
 /**
  * Default cap on the ride from the last stop to the digester, metres
@@ -180,11 +193,14 @@ interface Network {
 
 const pos = (s: CollectionStop): LatLng => ({ lat: s.lat!, lng: s.lng! });
 
-function prepareNetwork(input: CollectionRoundsInput, maxEndLegOption?: number): Network {
-  const maxEndLegM =
-    maxEndLegOption !== undefined && Number.isFinite(maxEndLegOption) && maxEndLegOption > 0
-      ? maxEndLegOption
-      : DEFAULT_MAX_END_LEG_M;
+function prepareNetwork(
+  input: CollectionRoundsInput,
+  options: Pick<CollectionRoundsOptions, "maxEndLegM" | "maxLegM"> = {},
+): Network {
+  const positive = (x: number | undefined, fallback: number) =>
+    x !== undefined && Number.isFinite(x) && x > 0 ? x : fallback;
+  const maxEndLegM = positive(options.maxEndLegM, DEFAULT_MAX_END_LEG_M);
+  const maxLegM = positive(options.maxLegM, DEFAULT_MAX_LEG_M);
   const messages: string[] = [];
   const unplaced: UnplacedStop[] = [];
   const volunteers = input.volunteers.filter((v) => {
@@ -219,6 +235,14 @@ function prepareNetwork(input: CollectionRoundsInput, maxEndLegOption?: number):
       drop(s, "invalidLoad", `Collection for ${s.householdId} has no valid load (${s.loadKg}).`);
     else if (volunteers.length === 0)
       drop(s, "noVolunteer", `No volunteer is available to collect from ${s.householdId}.`);
+    else if (!volunteers.some((v) => v.bikeLoadKg + KG_EPS >= s.loadKg && haversineM(v, pos(s)) <= maxLegM))
+      drop(
+        s,
+        s.loadKg > maxBikeKg + KG_EPS ? "heavierThanAnyBike" : "noVolunteer",
+        s.loadKg > maxBikeKg + KG_EPS
+          ? `Collection for ${s.householdId} (${round1(s.loadKg)} kg) is heavier than any cargo bike (largest ${round1(maxBikeKg)} kg); split it over two dates.`
+          : `No volunteer whose bike carries ${round1(s.loadKg)} kg starts within ${round1(maxLegM / 1000)} km of ${s.householdId}.`,
+      );
     else if (s.loadKg > maxBikeKg + KG_EPS)
       drop(
         s,
@@ -242,10 +266,12 @@ function prepareNetwork(input: CollectionRoundsInput, maxEndLegOption?: number):
   const n = stopIdx.length;
   const pts = stopIdx.map((i) => pos(input.stops[i]!));
   const dSS = new Float64Array(n * n);
+  // Legs beyond the cap are never ridden: Infinity, like the last leg's cap below.
+  const capped = (m: number) => (m <= maxLegM ? m : Infinity);
   for (let a = 0; a < n; a++)
-    for (let b = a + 1; b < n; b++) dSS[a * n + b] = dSS[b * n + a] = haversineM(pts[a]!, pts[b]!);
+    for (let b = a + 1; b < n; b++) dSS[a * n + b] = dSS[b * n + a] = capped(haversineM(pts[a]!, pts[b]!));
   const dVS = new Float64Array(volunteers.length * n);
-  volunteers.forEach((v, k) => pts.forEach((p, a) => (dVS[k * n + a] = haversineM(v, p))));
+  volunteers.forEach((v, k) => pts.forEach((p, a) => (dVS[k * n + a] = capped(haversineM(v, p)))));
   const E = digesters.length;
   const dSE = new Float64Array(n * E);
   // A digester beyond the cap is unreachable from that stop: every step below treats Infinity as "no end here".
@@ -851,7 +877,7 @@ export function planCollectionRounds(
   input: CollectionRoundsInput,
   options: CollectionRoundsOptions = {},
 ): CollectionPlan {
-  const net = prepareNetwork(input, options.maxEndLegM);
+  const net = prepareNetwork(input, options);
   if (net.stopIdx.length === 0) return buildPlan(net, [], []);
   const shapes = options.savingsShapes ?? [1, 0.6, 1.4];
   const rng = options.perturbation ? mulberry32(options.perturbation.seed) : null;
@@ -905,9 +931,9 @@ export const EXACT_ROUNDS_MAX_STOPS = 9;
  */
 export function exactCollectionRounds(
   input: CollectionRoundsInput,
-  options: Pick<CollectionRoundsOptions, "maxEndLegM"> = {},
+  options: Pick<CollectionRoundsOptions, "maxEndLegM" | "maxLegM"> = {},
 ): CollectionPlan | null {
-  const net = prepareNetwork(input, options.maxEndLegM);
+  const net = prepareNetwork(input, options);
   const n = net.stopIdx.length;
   if (n > EXACT_ROUNDS_MAX_STOPS) return null;
   if (n === 0) return buildPlan(net, [], []);
@@ -1092,9 +1118,9 @@ function assignmentMin(cost: Float64Array, size: number): number {
  */
 export function collectionRoundsLowerBoundM(
   input: CollectionRoundsInput,
-  options: Pick<CollectionRoundsOptions, "maxEndLegM"> = {},
+  options: Pick<CollectionRoundsOptions, "maxEndLegM" | "maxLegM"> = {},
 ): Metres {
-  const net = prepareNetwork(input, options.maxEndLegM);
+  const net = prepareNetwork(input, options);
   const n = net.stopIdx.length;
   if (n === 0) return metres(0);
   const total = net.load.reduce((s, x) => s + x, 0);

@@ -167,6 +167,37 @@ describe("collection rounds: hand-solved instances", () => {
     checkPlan(input, plan);
   });
 
+  it("when two stops are 20 km apart, then no round rides between them, and a stop with no volunteer within 5 km waits", () => {
+    // Two neighbourhoods 20 km apart on one meridian, each with a volunteer and a digester; a third stop 40 km out has neither.
+    const input: CollectionRoundsInput = {
+      stops: [
+        { householdId: "a", ...onLine(100), loadKg: 2 },
+        { householdId: "b", ...onLine(20_100), loadKg: 2 },
+        { householdId: "far", ...onLine(40_000), loadKg: 2 },
+      ],
+      volunteers: [
+        { id: "va", ...onLine(0), bikeLoadKg: 40 },
+        { id: "vb", ...onLine(20_000), bikeLoadKg: 40 },
+      ],
+      digesters: [
+        { id: "Da", ...onLine(400), roomKg: 100 },
+        { id: "Db", ...onLine(20_400), roomKg: 100 },
+        { id: "Dfar", ...onLine(40_300), roomKg: 100 },
+      ],
+    };
+    const plan = planCollectionRounds(input);
+    const byStop = Object.fromEntries(plan.rounds.flatMap((r) => r.stops.map((s) => [s.householdId, r])));
+    expect(byStop.a!.volunteerId).toBe("va");
+    expect(byStop.b!.volunteerId).toBe("vb");
+    expect(byStop.a).not.toBe(byStop.b);
+    // Each round: 100 m out, 300 m to its digester [derived].
+    expect(plan.totalLengthM).toBeCloseTo(800, 3);
+    expect(plan.unplacedStops.map((u) => [u.householdId, u.reason])).toEqual([["far", "noVolunteer"]]);
+    expect(plan.unplacedStops[0]!.message).toMatch(/within 5 km/);
+    for (const r of plan.rounds) for (const s of r.stops) expect(s.legM).toBeLessThanOrEqual(5000);
+    checkPlan(input, plan);
+  });
+
   it("when nobody has a bike, then every stop is reported and a message says so", () => {
     const input: CollectionRoundsInput = {
       stops: lineStops(2),

@@ -13,7 +13,7 @@ import type { Transaction } from "sequelize";
 import { dropOffQuantities } from "../../../shared/domain/drop-offs";
 import { DEFAULT_BUCKET_LITRES } from "../../../shared/domain/feed-budget";
 import { haversineM, isValidLatLng } from "../../../shared/domain/geo";
-import { DEFAULT_MAX_END_LEG_M, type UnplacedStopReason, planCollectionRounds } from "../../../shared/domain/rounds";
+import { DEFAULT_MAX_END_LEG_M, DEFAULT_MAX_LEG_M, type UnplacedStopReason, planCollectionRounds } from "../../../shared/domain/rounds";
 import { freshKgFromKgVs } from "../../../shared/domain/scraps";
 import { projectWeeklyRoom } from "../../../shared/domain/weekly-room";
 import {
@@ -65,7 +65,7 @@ const UNPLACED_WORDS: Record<UnplacedStopReason, string> = {
   heavierThanAnyBike: "more buckets than any volunteer's cargo bike can carry; split it over two days.",
   noDigesterWithRoom: `no digester within ${DEFAULT_MAX_END_LEG_M / 1000} km has room left for it on this date; plan it another day.`,
   noDigesterWithinReach: `no digester with room is within ${DEFAULT_MAX_END_LEG_M / 1000} km of it; plan it another day or ask the household to bring the buckets.`,
-  noVolunteer: "no volunteer is available for it; plan it another day or find a volunteer.",
+  noVolunteer: `no volunteer with a big enough cargo bike starts within ${DEFAULT_MAX_LEG_M / 1000} km of it; plan it another day or find a volunteer nearby.`,
 };
 
 /** Plans (or re-plans) a date: planned rounds with nothing collected yet are replaced. */

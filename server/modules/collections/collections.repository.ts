@@ -81,6 +81,18 @@ export function listRequestViews(filter: {
 }
 
 /** Locks a request row until the transaction ends; its household and status, or undefined when there is none. */
+/**
+ * Locks the round the request is a stop of, if any, before the request itself: planning and
+ * marking a stop collected lock round before request, and cancelling must take the same order.
+ */
+export async function lockRoundOfRequest(transaction: Transaction, requestId: number): Promise<void> {
+  await sequelize().query(
+    `SELECT r.id FROM collection_round_stops s JOIN collection_rounds r ON r.id = s.round_id
+      WHERE s.request_id = $1 FOR UPDATE OF r`,
+    { bind: [requestId], type: QueryTypes.SELECT, transaction },
+  );
+}
+
 export async function lockRequest(
   transaction: Transaction,
   id: number,

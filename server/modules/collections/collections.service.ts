@@ -47,6 +47,7 @@ export async function listRequests(caller: Caller, query: { mine?: "true" | "fal
 /** Cancels an open or planned request (own household, or a coordinator); a planned stop leaves its round. */
 export async function cancelRequest(caller: Caller, id: number): Promise<CollectionRequestView> {
   return sequelize().transaction(async (transaction) => {
+    await repo.lockRoundOfRequest(transaction, id);
     const row = await repo.lockRequest(transaction, id);
     if (!row) throw notFound("The collection request");
     if (!caller.roles.includes("coordinator") && caller.householdId !== row.householdId) {

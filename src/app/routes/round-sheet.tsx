@@ -19,6 +19,8 @@ function RoundSheetPage() {
   if (sheet.isPending) return <p>Loading the round…</p>;
   if (sheet.error) return <Alert variant="danger" title="Could not load the round">{sheet.error.message}</Alert>;
   const s = sheet.data;
+  // Stops are marked collected on the round's day (the server refuses earlier); "en-CA" gives YYYY-MM-DD.
+  const later = s.forDate > new Date().toLocaleDateString("en-CA");
   return (
     <>
       <PageHeader
@@ -64,7 +66,9 @@ function RoundSheetPage() {
                     {stop.householdName}
                   </TD>
                   <TD>
-                    {stop.status === "planned" ? (
+                    {stop.status === "planned" && later ? (
+                      <span>To collect on {s.forDate}</span>
+                    ) : stop.status === "planned" ? (
                       <Button type="button" size="sm" data-print-hide loading={collected.isPending && collected.variables === stop.requestId} onClick={() => collected.mutate(stop.requestId)}>
                         Mark collected<span className="sr-only"> at stop {stop.seq}</span>
                       </Button>

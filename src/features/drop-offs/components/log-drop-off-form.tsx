@@ -14,7 +14,7 @@ import { Alert, Button, Checkbox, Field, Input, RadioGroup, Select, Textarea } f
 import { newIdempotencyKey, useCreateDropOff } from "../api/create-drop-off";
 import { dayText, kg, mixLabels } from "../utils/labels";
 import { nextDay, previewWelcome, roomKgScraps, type LatLng } from "../utils/welcome";
-import { focusFirstInvalid, readNumber, serverFieldErrors, zodFieldErrors, type FieldErrors } from "../utils/form";
+import { focusFirstInvalid, readNumber, serverFieldErrors, zodFieldErrors, type FieldErrors } from "@/lib/form";
 
 const BUCKET_SIZES_L = [5, 7, 10, 12, 15, 20, 25];
 const CITRUS_CHOICES = [

@@ -8,7 +8,7 @@ import {
 import { Alert, Button, Field, Input } from "@/components/ui";
 import { useRegisterHousehold } from "../api/register-household";
 import { useUpdateHousehold } from "../api/update-household";
-import { focusFirstInvalid, readNumber, serverFieldErrors, zodFieldErrors, type FieldErrors } from "../utils/form";
+import { focusFirstInvalid, readNumber, serverFieldErrors, zodFieldErrors, type FieldErrors } from "@/lib/form";
 import { LocationPicker, type LatLng } from "./location-picker";
 
 const FIELDS = ["name", "addressText", "location", "location.lat", "location.lng", "declaredWeeklyKg"] as const;

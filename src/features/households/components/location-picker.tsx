@@ -5,7 +5,7 @@ import type { Street } from "@shared/schemas/households";
 import { BaseMap } from "@/components/map/base-map";
 import { textMarker } from "@/components/map/marker-icon";
 import { Field, FieldError, Input, Select } from "@/components/ui";
-import { readNumber } from "../utils/form";
+import { readNumber } from "@/lib/form";
 
 export type LatLng = { lat: number; lng: number };
 

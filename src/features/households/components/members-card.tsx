@@ -13,7 +13,7 @@ import {
   Input,
 } from "@/components/ui";
 import { useAddMember } from "../api/add-member";
-import { focusFirstInvalid, serverFieldErrors, zodFieldErrors, type FieldErrors } from "../utils/form";
+import { focusFirstInvalid, serverFieldErrors, zodFieldErrors, type FieldErrors } from "@/lib/form";
 
 /** Who belongs to the household, and a form to invite another member by e-mail. */
 export function MembersCard({ household }: { household: Household }) {

@@ -1,6 +1,6 @@
 /**
- * Small helpers of the household forms: number fields read as text until submit, zod issues
- * and server field messages turned into `{ field: message }` with dotted names ("location.lat").
+ * Helpers of the app's forms: number fields read as text until submit, zod issues and server
+ * field messages turned into `{ field: message }` with dotted names ("location.lat").
  */
 import type { z } from "zod";
 import { ApiError } from "@/lib/api-client";

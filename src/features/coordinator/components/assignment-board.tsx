@@ -28,14 +28,12 @@ import {
   TableCaption,
   TBody,
   TD,
-  TH,
-  THead,
   TR,
 } from "@/components/ui";
 import { ApiError } from "@/lib/api-client";
 import { useApplyProposal } from "../api/apply";
 import { usePropose } from "../api/propose";
-import { ariaSort } from "@/components/data-table/aria-sort";
+import { SortableHead } from "@/components/data-table/sortable-head";
 
 const ProposalMap = lazy(async () => ({ default: (await import("./proposal-map")).ProposalMap }));
 
@@ -271,28 +269,7 @@ export function AssignmentBoard() {
               <TableCaption className="sr-only">
                 Each household, today's digester, the proposed one, the walk and the weekly scraps
               </TableCaption>
-              <THead>
-                {table.getHeaderGroups().map((group) => (
-                  <TR key={group.id}>
-                    {group.headers.map((header) => {
-                      const canSort = header.column.getCanSort();
-                      return (
-                        <TH
-                          key={header.id}
-                          sort={canSort ? ariaSort(header.column.getIsSorted()) : undefined}
-                          onSort={
-                            canSort
-                              ? () => header.column.toggleSorting(header.column.getIsSorted() === "asc")
-                              : undefined
-                          }
-                        >
-                          {header.isPlaceholder ? null : <table.FlexRender header={header} />}
-                        </TH>
-                      );
-                    })}
-                  </TR>
-                ))}
-              </THead>
+              <SortableHead groups={table.getHeaderGroups()} render={(header) => <table.FlexRender header={header} />} />
               <TBody>
                 {table.getRowModel().rows.map((row) => (
                   <TR key={row.id}>

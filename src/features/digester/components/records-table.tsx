@@ -31,13 +31,11 @@ import {
   TableCaption,
   TBody,
   TD,
-  TH,
-  THead,
   TR,
   type SelectOption,
 } from "@/components/ui";
 import { downloadText } from "../utils/format";
-import { ariaSort } from "@/components/data-table/aria-sort";
+import { SortableHead } from "@/components/data-table/sortable-head";
 import { TablePager } from "@/components/data-table/table-pager";
 
 export const recordFeatures = tableFeatures({
@@ -165,26 +163,7 @@ export function RecordsTable<T extends RowData>({
       ) : (
         <Table label={caption} aria-describedby={`${id}-count`}>
           <TableCaption className="sr-only">{caption}</TableCaption>
-          <THead>
-            {table.getHeaderGroups().map((group) => (
-              <TR key={group.id}>
-                {group.headers.map((header) => {
-                  const canSort = header.column.getCanSort();
-                  return (
-                    <TH
-                      key={header.id}
-                      sort={canSort ? ariaSort(header.column.getIsSorted()) : undefined}
-                      onSort={
-                        canSort ? () => header.column.toggleSorting(header.column.getIsSorted() === "asc") : undefined
-                      }
-                    >
-                      {header.isPlaceholder ? null : <table.FlexRender header={header} />}
-                    </TH>
-                  );
-                })}
-              </TR>
-            ))}
-          </THead>
+          <SortableHead groups={table.getHeaderGroups()} render={(header) => <table.FlexRender header={header} />} />
           <TBody>
             {rows.map((row) => (
               <TR key={row.id}>

@@ -32,14 +32,12 @@ import {
   TableCaption,
   TBody,
   TD,
-  TH,
-  THead,
   TR,
 } from "@/components/ui";
 import { ApiError } from "@/lib/api-client";
 import { useCancelDropOff } from "../api/cancel-drop-off";
 import { amountText, dayText, mixLabels, statusTones } from "../utils/labels";
-import { ariaSort } from "@/components/data-table/aria-sort";
+import { SortableHead } from "@/components/data-table/sortable-head";
 import { TablePager } from "@/components/data-table/table-pager";
 
 const features = tableFeatures({
@@ -209,28 +207,7 @@ export function DropOffHistoryTable({ dropOffs }: { dropOffs: DropOff[] }) {
       ) : (
         <Table label="Your drop-offs" aria-describedby={`${id}-count`}>
           <TableCaption className="sr-only">Your household's drop-offs and what became of them</TableCaption>
-          <THead>
-            {table.getHeaderGroups().map((group) => (
-              <TR key={group.id}>
-                {group.headers.map((header) => {
-                  const canSort = header.column.getCanSort();
-                  return (
-                    <TH
-                      key={header.id}
-                      // Screen-reader-only text is absolutely placed: the positioned cell keeps it inside the table's scroll box.
-                      className="relative"
-                      sort={canSort ? ariaSort(header.column.getIsSorted()) : undefined}
-                      onSort={
-                        canSort ? () => header.column.toggleSorting(header.column.getIsSorted() === "asc") : undefined
-                      }
-                    >
-                      {header.isPlaceholder ? null : <table.FlexRender header={header} />}
-                    </TH>
-                  );
-                })}
-              </TR>
-            ))}
-          </THead>
+          <SortableHead groups={table.getHeaderGroups()} render={(header) => <table.FlexRender header={header} />} />
           <TBody>
             {rows.map((row) => (
               <TR key={row.id}>

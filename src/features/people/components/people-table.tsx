@@ -30,12 +30,10 @@ import {
   TableCaption,
   TBody,
   TD,
-  TH,
-  THead,
   TR,
 } from "@/components/ui";
 import { roleLabels, statusTone, statusLabels } from "../utils/labels";
-import { ariaSort } from "@/components/data-table/aria-sort";
+import { SortableHead } from "@/components/data-table/sortable-head";
 import { TablePager } from "@/components/data-table/table-pager";
 
 const features = tableFeatures({
@@ -200,26 +198,7 @@ export function PeopleTable({ people, digesterNames, onEdit }: PeopleTableProps)
       ) : (
         <Table label="People" aria-describedby={`${id}-count`}>
           <TableCaption className="sr-only">People in the group, their roles and status</TableCaption>
-          <THead>
-            {table.getHeaderGroups().map((group) => (
-              <TR key={group.id}>
-                {group.headers.map((header) => {
-                  const canSort = header.column.getCanSort();
-                  return (
-                    <TH
-                      key={header.id}
-                      sort={canSort ? ariaSort(header.column.getIsSorted()) : undefined}
-                      onSort={
-                        canSort ? () => header.column.toggleSorting(header.column.getIsSorted() === "asc") : undefined
-                      }
-                    >
-                      {header.isPlaceholder ? null : <table.FlexRender header={header} />}
-                    </TH>
-                  );
-                })}
-              </TR>
-            ))}
-          </THead>
+          <SortableHead groups={table.getHeaderGroups()} render={(header) => <table.FlexRender header={header} />} />
           <TBody>
             {rows.map((row) => (
               <TR key={row.id}>

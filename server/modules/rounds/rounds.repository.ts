@@ -4,7 +4,6 @@
  * planned rounds, then the requests; marking collected: the round row, then its stop's request).
  */
 import { QueryTypes, type Transaction } from "sequelize";
-import type { MassMethod } from "../../../shared/domain/scraps";
 import type { CollectionRequestStatus, RoundSummary } from "../../../shared/schemas/collections";
 import { sequelize } from "../../db/sequelize";
 
@@ -321,41 +320,6 @@ export async function lockStop(
     transaction,
   );
   return stop;
-}
-
-export interface CollectedDropOff {
-  householdId: number;
-  digesterId: number;
-  personId: number;
-  forDate: string;
-  bucketCount: number;
-  bucketLitres: number;
-  massSource: MassMethod;
-  freshKg: number;
-  kgVs: number;
-  note: string;
-}
-
-/** Inserts the pending drop-off of collected mixed scraps; returns its id. */
-export async function insertCollectedDropOff(transaction: Transaction, d: CollectedDropOff): Promise<number> {
-  const [dropOff] = await q<{ id: number }>(
-    `INSERT INTO drop_offs (household_id, digester_id, person_id, for_date, bucket_count, bucket_litres, mass_source, fresh_kg, kg_vs, mix, status, note)
-     VALUES ($1, $2, $3, $4, $5, $6, $7, $8, $9, 'mixed', 'pending', $10) RETURNING id`,
-    [
-      d.householdId,
-      d.digesterId,
-      d.personId,
-      d.forDate,
-      d.bucketCount,
-      d.bucketLitres,
-      d.massSource,
-      d.freshKg,
-      d.kgVs,
-      d.note,
-    ],
-    transaction,
-  );
-  return dropOff!.id;
 }
 
 /** Links a stop to the drop-off its collection made. */

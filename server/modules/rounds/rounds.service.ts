@@ -27,6 +27,7 @@ import { AppError, badRequest, conflict, forbidden, notFound } from "../../lib/a
 import { daysBetween, localDate } from "../../lib/clock";
 import type { Caller } from "../../middleware/handle";
 import { type DigesterToday, loadDigestersToday } from "../digesters/digester-state.service";
+import { insertDropOff } from "../drop-offs/drop-offs.repository";
 import * as repo from "./rounds.repository";
 
 /** What is already headed for a digester on the date planned, fresh kg (see repo.reservedOnDate). */
@@ -278,16 +279,21 @@ export async function markCollected(caller: Caller, roundId: number, requestId: 
       kgPerLitre: COLLECTION_KG_PER_LITRE,
       mix: "mixed",
     });
-    const dropOffId = await repo.insertCollectedDropOff(transaction, {
+    // The same pending drop-off a resident logs (defaults for what a collection does not ask: no citrus, no refuse check).
+    const { id: dropOffId } = await insertDropOff(transaction, {
       householdId: stop.householdId,
       digesterId: round.endDigesterId,
       personId: caller.id,
       forDate: round.forDate,
       bucketCount: stop.bucketCount,
       bucketLitres: DEFAULT_BUCKET_LITRES,
+      weightKg: null,
       massSource: quantities.massSource,
       freshKg: quantities.freshKg,
       kgVs: quantities.kgVs,
+      mix: "mixed",
+      citrusPercent: 0,
+      noRefuseConfirmed: false,
       note: `Collected by cargo bike on round ${roundId}.`,
     });
     await repo.setStopDropOff(transaction, roundId, requestId, dropOffId);

@@ -1098,7 +1098,7 @@ function solveCore(prep: Prepared, solver: LpSolver, options: AssignmentOptions)
   } else {
     if (preBound) boundDm = preBound.boundDm;
     notes.push(
-      `HiGHS did not solve the relaxation (${relaxed.status}); the plan below comes from the nearest-with-room rule improved by local moves${preBound ? ", with a Lagrangian bound" : ", with no bound"}.`,
+      `The solver did not solve this network (${relaxed.status}), so this plan comes from the nearest digester with room, improved by moving households one at a time; ${preBound ? "the gap shown bounds how far it is from the best possible" : "how far it is from the best possible is unknown"}.`,
     );
   }
   const pruning = wantExact ? null : { candidatesPerHousehold: k, pairsAddedByPricing: relaxed.added };
@@ -1190,12 +1190,12 @@ function solveCore(prep: Prepared, solver: LpSolver, options: AssignmentOptions)
   modelVariables = Math.max(modelVariables, core.variables);
   if (core.error)
     notes.push(
-      `HiGHS failed on part of the reduced MIP (${core.error}); that part keeps the incumbent and is not proven optimal.`,
+      `The solver failed on part of the network (${core.error}); that part keeps the plan found before and is not proven the best.`,
     );
   const proven = core.allOptimal && !core.error;
   if (!proven) {
     notes.push(
-      `HiGHS stopped before proving the plan optimal (${core.statuses.filter((x) => x !== "Optimal").join(", ") || "no better plan"}); the plan shown is the best found, within the gap to the bound.`,
+      `The solver reached its time limit before proving this plan the best (${core.statuses.filter((x) => x !== "Optimal").join(", ") || "no better plan"}); it is within the gap shown of the best possible.`,
     );
   }
   return {
@@ -1497,7 +1497,7 @@ function assemble(prep: Prepared, outcome: SolveOutcome): AssignmentResult {
     );
   if (outcome.pruning) {
     messages.push(
-      `Large network (${model.items.length} households to place): the LP relaxation was solved over each household's ${outcome.pruning.candidatesPerHousehold} most promising digesters (smallest Lagrangian reduced cost), every other pair was priced with the LP duals (${outcome.pruning.pairsAddedByPricing} added back), then rounded, repaired and improved; the plan is within ${gap === null ? "an unknown margin" : `${(gap * 100).toFixed(2)} %`} of a lower bound valid for all pairs, but not proven optimal.`,
+      `This network is large (${model.items.length} households to place), so the plan was found approximately${gap === null ? "" : `: it is at most ${(gap * 100).toFixed(2)} % longer in walking than the best possible`}; it is not proven the best. (Method: LP relaxation over each household's ${outcome.pruning.candidatesPerHousehold} most promising digesters, ${outcome.pruning.pairsAddedByPricing} more priced back in, rounded, repaired and improved.)`,
     );
   }
   return {

@@ -60,8 +60,8 @@ const round1 = (x: number) => Math.round(x * 10) / 10;
 
 /**
  * The solver's own messages as a coordinator reads them: those this service already says in its
- * own words (contradictory pins, digesters without room, the unplaced summary) are left out,
- * technical ones are put plainly, and ids become names.
+ * own words (contradictory pins, digesters without room, the unplaced summary) are left out, and
+ * ids become names.
  */
 function coordinatorMessages(
   result: AssignmentResult,
@@ -74,22 +74,6 @@ function coordinatorMessages(
     if (contradictions.has(m)) continue;
     if (/could not be placed; see the list/.test(m)) continue;
     if (/^Digester \S+ has no room this week/.test(m) || m.startsWith("No digester is taking scraps")) continue;
-    if (m.startsWith("Large network")) {
-      out.push(
-        result.gapToLpBound === null
-          ? "This network is large, so the plan was found approximately; it is not proven the best."
-          : `This network is large, so the plan was found approximately: it is at most ${(result.gapToLpBound * 100).toFixed(2)} % longer in walking than the best possible.`,
-      );
-      continue;
-    }
-    if (m.startsWith("HiGHS stopped before proving")) {
-      out.push("The solver reached its time limit before proving this plan the best; the solver card shows how close it is.");
-      continue;
-    }
-    if (m.startsWith("HiGHS did not solve") || m.startsWith("HiGHS failed")) {
-      out.push("The solver could not finish, so this plan comes from the nearest digester with room, improved by hand-made moves.");
-      continue;
-    }
     out.push(
       m
         .replace(/\bHousehold (\d+)\b/g, (_, id: string) => householdName(id))

@@ -402,7 +402,7 @@ function ProposalView({
                     max={d.roomKg > 0 ? d.roomKg : 1}
                     valueText={
                       d.roomKg > 0
-                        ? `${kg1(d.loadKg)} of ${kg1(d.roomKg)} a week (${Math.round((d.utilisation ?? 0) * 100)} %), ${d.householdCount} households`
+                        ? `${kg1(d.loadKg)} of ${kg1(d.roomKg)} a week (${Math.round((d.utilisation ?? 0) * 100)} %), ${d.householdCount} household${d.householdCount === 1 ? "" : "s"}`
                         : d.available
                           ? "No room this week"
                           : d.excluded

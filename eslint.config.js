@@ -32,10 +32,22 @@ export default tseslint.config(
         "error",
         {
           zones: [
-            { target: "./shared", from: ["./src", "./server", "./scripts", "./tests"], message: "shared/ is pure: it imports only zod and shared/." },
+            {
+              target: "./shared",
+              from: ["./src", "./server", "./scripts", "./tests"],
+              message: "shared/ is pure: it imports only zod and shared/.",
+            },
             { target: "./src", from: ["./server", "./scripts"], message: "The client never imports server code." },
-            { target: "./server", from: ["./src", "./scripts"], message: "The server never imports client code or scripts." },
-            { target: "./src/components", from: ["./src/features", "./src/app"], message: "components/ are shared building blocks: no feature or app imports." },
+            {
+              target: "./server",
+              from: ["./src", "./scripts"],
+              message: "The server never imports client code or scripts.",
+            },
+            {
+              target: "./src/components",
+              from: ["./src/features", "./src/app"],
+              message: "components/ are shared building blocks: no feature or app imports.",
+            },
             { target: "./src/lib", from: ["./src/features", "./src/app", "./src/components"] },
             { target: "./src/features", from: ["./src/app"], message: "Features do not import the app layer." },
             ...features.map((f) => ({

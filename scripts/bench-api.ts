@@ -72,7 +72,12 @@ async function call(method: string, url: string, body?: unknown, headers: Record
   return res;
 }
 let csrf = ((await (await call("GET", "/api/auth/csrf")).json()) as { token: string }).token;
-const login = await call("POST", "/api/auth/login", { email: "resident@example.org", password: "hearthloop-demo" }, { "x-csrf-token": csrf });
+const login = await call(
+  "POST",
+  "/api/auth/login",
+  { email: "resident@example.org", password: "hearthloop-demo" },
+  { "x-csrf-token": csrf },
+);
 if (login.status !== 200) throw new Error(`sign-in failed: ${login.status}`);
 csrf = ((await (await call("GET", "/api/auth/csrf")).json()) as { token: string }).token;
 const digesters = (await (await call("GET", "/api/digesters")).json()) as { id: number; status: string }[];
@@ -116,15 +121,31 @@ interface Case {
 const cases: Case[] = [
   { name: "bare Express route (reference)", url: bareServer.url + "/ping", target: "—" },
   { name: "GET /api/auth/me (session + person)", url: app.url + "/api/auth/me", target: "≥ 1000 req/s, p99 ≤ 50 ms" },
-  { name: "GET /api/drop-offs?mine=true", url: app.url + "/api/drop-offs?mine=true", target: "≥ 1000 req/s, p99 ≤ 50 ms" },
-  { name: "GET /api/digesters (today's budgets)", url: app.url + "/api/digesters", target: "≥ 1000 req/s, p99 ≤ 50 ms" },
-  { name: "POST /api/drop-offs (write)", url: app.url + "/api/drop-offs", method: "POST", body: dropOffBody, target: "≥ 300 req/s, p99 ≤ 100 ms" },
+  {
+    name: "GET /api/drop-offs?mine=true",
+    url: app.url + "/api/drop-offs?mine=true",
+    target: "≥ 1000 req/s, p99 ≤ 50 ms",
+  },
+  {
+    name: "GET /api/digesters (today's budgets)",
+    url: app.url + "/api/digesters",
+    target: "≥ 1000 req/s, p99 ≤ 50 ms",
+  },
+  {
+    name: "POST /api/drop-offs (write)",
+    url: app.url + "/api/drop-offs",
+    method: "POST",
+    body: dropOffBody,
+    target: "≥ 300 req/s, p99 ≤ 100 ms",
+  },
 ];
 
 const rows: string[][] = [];
 let bareRps = 0;
 for (const c of cases) {
-  const counted = c.url.startsWith(app.url) ? await statementsFor(c.method ?? "GET", c.url.slice(app.url.length), c.body) : undefined;
+  const counted = c.url.startsWith(app.url)
+    ? await statementsFor(c.method ?? "GET", c.url.slice(app.url.length), c.body)
+    : undefined;
   const result = await autocannon({
     url: c.url,
     method: c.method ?? "GET",

@@ -68,7 +68,9 @@ async function main() {
   mkdirSync(path.dirname(lockFile), { recursive: true });
   const other = readPid(lockFile);
   if (other && other !== process.pid && alive(other)) {
-    console.error(`Hearthloop is already running from this folder (process ${other}) at ${process.env.APP_URL}. Stop it with Ctrl-C first.`);
+    console.error(
+      `Hearthloop is already running from this folder (process ${other}) at ${process.env.APP_URL}. Stop it with Ctrl-C first.`,
+    );
     process.exit(1);
   }
   writeFileSync(lockFile, String(process.pid));
@@ -133,4 +135,3 @@ main().catch(async (err) => {
   console.error(`Hearthloop could not start: ${message}`);
   await stopAll(1);
 });
-

@@ -29,12 +29,14 @@ let maildev: MailDevHandle | undefined;
 
 function ensureChromium() {
   if (existsSync("/usr/bin/chromium")) return;
-  if (process.getuid?.() !== 0) throw new SetupError("Chromium is missing: run `sudo apt-get install -y chromium` once.");
+  if (process.getuid?.() !== 0)
+    throw new SetupError("Chromium is missing: run `sudo apt-get install -y chromium` once.");
   log("Installing Chromium from Debian's packages (apt-get)…");
   const env = { ...process.env, DEBIAN_FRONTEND: "noninteractive" };
   spawnSync("apt-get", ["update", "-qq"], { stdio: "inherit", env });
   const r = spawnSync("apt-get", ["install", "-y", "-qq", "chromium"], { stdio: "inherit", env });
-  if (r.status !== 0 || !existsSync("/usr/bin/chromium")) throw new SetupError("Could not install Chromium with apt-get.");
+  if (r.status !== 0 || !existsSync("/usr/bin/chromium"))
+    throw new SetupError("Could not install Chromium with apt-get.");
 }
 
 /** Drops and recreates a database so every run starts from migrations on an empty schema. */
@@ -54,7 +56,11 @@ function step(name: string, args: string[], env: NodeJS.ProcessEnv = process.env
   log(`── ${name}`);
   const started = Date.now();
   return new Promise((resolve) => {
-    const child = spawn(process.execPath, args, { cwd: root, stdio: quiet ? ["ignore", "pipe", "pipe"] : "inherit", env });
+    const child = spawn(process.execPath, args, {
+      cwd: root,
+      stdio: quiet ? ["ignore", "pipe", "pipe"] : "inherit",
+      env,
+    });
     let output = "";
     child.stdout?.on("data", (d) => (output += String(d)));
     child.stderr?.on("data", (d) => (output += String(d)));
@@ -105,10 +111,15 @@ async function main(): Promise<number> {
     built = false;
   }
   results.push(["client build", built]);
-  results.push(["vitest", await step("vitest (shared, server, client, e2e)", [bin("vitest", "vitest.mjs"), "run"], env)]);
+  results.push([
+    "vitest",
+    await step("vitest (shared, server, client, e2e)", [bin("vitest", "vitest.mjs"), "run"], env),
+  ]);
 
   const failed = results.filter(([, ok]) => !ok).map(([n]) => n);
-  log(`Finished in ${((Date.now() - t0) / 1000).toFixed(0)} s: ${failed.length ? `FAILED: ${failed.join(", ")}` : "all checks passed"}.`);
+  log(
+    `Finished in ${((Date.now() - t0) / 1000).toFixed(0)} s: ${failed.length ? `FAILED: ${failed.join(", ")}` : "all checks passed"}.`,
+  );
   return failed.length ? 1 : 0;
 }
 

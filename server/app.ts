@@ -62,7 +62,8 @@ export function createApp(options: AppOptions = {}): Express {
         return id;
       },
       autoLogging: options.requestLogging ?? true,
-      customLogLevel: (_req, res, err) => (err || res.statusCode >= 500 ? "error" : res.statusCode >= 400 ? "info" : "debug"),
+      customLogLevel: (_req, res, err) =>
+        err || res.statusCode >= 500 ? "error" : res.statusCode >= 400 ? "info" : "debug",
       serializers: {
         // One-time tokens in invitation and reset URLs never reach the log.
         req: (req) => ({ id: req.id, method: req.method, url: redactUrl(String(req.url)) }),
@@ -84,7 +85,10 @@ export function createApp(options: AppOptions = {}): Express {
 
   const dist = options.clientDist ? path.resolve(options.clientDist) : undefined;
   if (dist && existsSync(path.join(dist, "index.html"))) {
-    app.use("/assets", express.static(path.join(dist, "assets"), { immutable: true, maxAge: "365d", fallthrough: false }));
+    app.use(
+      "/assets",
+      express.static(path.join(dist, "assets"), { immutable: true, maxAge: "365d", fallthrough: false }),
+    );
     app.use(express.static(dist, { index: false, maxAge: "1h" }));
     // Client-side routes: every other GET gets the app shell.
     app.use((req, res, next) => {

@@ -44,7 +44,8 @@ async function main() {
   if (e.JOBS_ENABLED) startJobs();
   warmUpSolver().then(
     (ms) => logger.info({ ms: Math.round(ms) }, "scheduler warmed up"),
-    (err: unknown) => logger.warn({ err: (err as Error).message }, "scheduler warm-up failed; the first proposal will be slower"),
+    (err: unknown) =>
+      logger.warn({ err: (err as Error).message }, "scheduler warm-up failed; the first proposal will be slower"),
   );
 
   let stopping = false;

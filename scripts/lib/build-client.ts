@@ -30,11 +30,15 @@ export function buildClientIfStale(log: (line: string) => void, outDir = "dist")
   const hash = sourceHash({ tiles: process.env.VITE_TILE_URL });
   if (existsSync(marker) && readFileSync(marker, "utf8") === hash) return false;
   log("Building the client (vite build)…");
-  const result = spawnSync(process.execPath, [path.join(root, "node_modules", "vite", "bin", "vite.js"), "build", "--outDir", outDir, "--emptyOutDir"], {
-    cwd: root,
-    stdio: ["ignore", "inherit", "inherit"],
-    env: process.env,
-  });
+  const result = spawnSync(
+    process.execPath,
+    [path.join(root, "node_modules", "vite", "bin", "vite.js"), "build", "--outDir", outDir, "--emptyOutDir"],
+    {
+      cwd: root,
+      stdio: ["ignore", "inherit", "inherit"],
+      env: process.env,
+    },
+  );
   if (result.status !== 0) throw new Error("The client build failed (see above).");
   writeFileSync(marker, hash);
   return true;

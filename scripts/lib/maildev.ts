@@ -18,14 +18,29 @@ async function healthy(webPort: number) {
 }
 
 /** Returns undefined when a maildev already answers on the web port (reused, not ours to stop). */
-export async function startMailDev(smtpPort: number, webPort: number, root: string): Promise<MailDevHandle | undefined> {
+export async function startMailDev(
+  smtpPort: number,
+  webPort: number,
+  root: string,
+): Promise<MailDevHandle | undefined> {
   if (await healthy(webPort)) return undefined;
   const pkgFile = path.join(root, "node_modules", "maildev", "package.json");
   const pkg = JSON.parse(readFileSync(pkgFile, "utf8")) as { bin: Record<string, string> };
   const bin = path.join(path.dirname(pkgFile), pkg.bin.maildev!);
   const child = spawn(
     process.execPath,
-    [bin, "--smtp", String(smtpPort), "--web", String(webPort), "--ip", "127.0.0.1", "--web-ip", "127.0.0.1", "--silent"],
+    [
+      bin,
+      "--smtp",
+      String(smtpPort),
+      "--web",
+      String(webPort),
+      "--ip",
+      "127.0.0.1",
+      "--web-ip",
+      "127.0.0.1",
+      "--silent",
+    ],
     { cwd: root, stdio: ["ignore", "ignore", "pipe"] },
   );
   let stderr = "";

@@ -4,7 +4,17 @@
  * exceed PostgreSQL's length limit). Works as root by running the server as user `postgres`.
  */
 import { execFileSync, spawnSync } from "node:child_process";
-import { accessSync, chmodSync, chownSync, constants, existsSync, mkdirSync, readdirSync, readFileSync, writeFileSync } from "node:fs";
+import {
+  accessSync,
+  chmodSync,
+  chownSync,
+  constants,
+  existsSync,
+  mkdirSync,
+  readdirSync,
+  readFileSync,
+  writeFileSync,
+} from "node:fs";
 import path from "node:path";
 import net from "node:net";
 import pg from "pg";
@@ -35,10 +45,14 @@ export function ensurePostgresBinaries(log: (line: string) => void): string {
   const found = findBinDir();
   if (found) return found;
   if (!existsSync("/usr/bin/apt-get")) {
-    throw new SetupError("PostgreSQL server binaries are missing and apt-get is not available: install PostgreSQL 15 or newer.");
+    throw new SetupError(
+      "PostgreSQL server binaries are missing and apt-get is not available: install PostgreSQL 15 or newer.",
+    );
   }
   if (!isRoot) {
-    throw new SetupError("PostgreSQL server binaries are missing; run `sudo apt-get install -y postgresql` once, then try again.");
+    throw new SetupError(
+      "PostgreSQL server binaries are missing; run `sudo apt-get install -y postgresql` once, then try again.",
+    );
   }
   log("Installing PostgreSQL from Debian's packages (apt-get)…");
   // Stop the package from creating and starting its own cluster on port 5432.
@@ -64,7 +78,9 @@ function run(bin: string, args: string[], opts: { quiet?: boolean } = {}) {
   const fullArgs = isRoot ? ["-u", "postgres", "--", bin, ...args] : args;
   const result = spawnSync(cmd, fullArgs, { encoding: "utf8" });
   if (result.status !== 0 && !opts.quiet) {
-    throw new SetupError(`${path.basename(bin)} failed: ${(result.stderr || result.stdout).trim().split("\n").slice(-3).join(" ")}`);
+    throw new SetupError(
+      `${path.basename(bin)} failed: ${(result.stderr || result.stdout).trim().split("\n").slice(-3).join(" ")}`,
+    );
   }
   return result;
 }
@@ -102,7 +118,10 @@ function isRunning(bin: string, dataDir: string) {
  * missing. Idempotent. Returns whether this call started the server (so the caller stops
  * only what it started).
  */
-export async function ensureCluster(o: ClusterOptions, log: (line: string) => void): Promise<{ startedHere: boolean; binDir: string }> {
+export async function ensureCluster(
+  o: ClusterOptions,
+  log: (line: string) => void,
+): Promise<{ startedHere: boolean; binDir: string }> {
   const binDir = ensurePostgresBinaries(log);
   const parent = path.dirname(o.dataDir);
   mkdirSync(parent, { recursive: true });
@@ -122,7 +141,15 @@ export async function ensureCluster(o: ClusterOptions, log: (line: string) => vo
     chmodSync(o.dataDir, 0o700);
     try {
       run(path.join(binDir, "initdb"), [
-        "-D", o.dataDir, "-U", o.user, `--pwfile=${pwfile}`, "--auth=scram-sha-256", "-E", "UTF8", "--locale=C.UTF-8",
+        "-D",
+        o.dataDir,
+        "-U",
+        o.user,
+        `--pwfile=${pwfile}`,
+        "--auth=scram-sha-256",
+        "-E",
+        "UTF8",
+        "--locale=C.UTF-8",
       ]);
     } finally {
       spawnSync("rm", ["-f", pwfile]);
@@ -132,12 +159,21 @@ export async function ensureCluster(o: ClusterOptions, log: (line: string) => vo
   let startedHere = false;
   if (!isRunning(binDir, o.dataDir)) {
     if (!(await portIsFree(o.port))) {
-      throw new SetupError(`PostgreSQL cannot start: port ${o.port} on 127.0.0.1 is taken by another program (set a free port in .env).`);
+      throw new SetupError(
+        `PostgreSQL cannot start: port ${o.port} on 127.0.0.1 is taken by another program (set a free port in .env).`,
+      );
     }
     const logFile = path.join(o.dataDir, "server.log");
     run(path.join(binDir, "pg_ctl"), [
-      "-D", o.dataDir, "-l", logFile, "-w", "-t", "60",
-      "-o", `-c listen_addresses=127.0.0.1 -p ${o.port} -c unix_socket_directories=''`,
+      "-D",
+      o.dataDir,
+      "-l",
+      logFile,
+      "-w",
+      "-t",
+      "60",
+      "-o",
+      `-c listen_addresses=127.0.0.1 -p ${o.port} -c unix_socket_directories=''`,
       "start",
     ]);
     startedHere = true;

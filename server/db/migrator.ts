@@ -19,8 +19,10 @@ export function migrator() {
       glob: ["migrations/*.ts", { cwd: here }],
       resolve: ({ name, path: file, context }) => ({
         name,
-        up: async () => ((await import(pathToFileURL(file!).href)) as { migration: Migration }).migration.up({ context }),
-        down: async () => ((await import(pathToFileURL(file!).href)) as { migration: Migration }).migration.down({ context }),
+        up: async () =>
+          ((await import(pathToFileURL(file!).href)) as { migration: Migration }).migration.up({ context }),
+        down: async () =>
+          ((await import(pathToFileURL(file!).href)) as { migration: Migration }).migration.down({ context }),
       }),
     },
     context: db.getQueryInterface(),

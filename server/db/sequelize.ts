@@ -23,7 +23,9 @@ export function sequelize(): Sequelize {
     hooks: {
       afterConnect(connection) {
         // Without an error listener a database restart would crash the process.
-        (connection as unknown as pg.Client).on("error", (err) => logger.warn({ err: err.message }, "database connection error"));
+        (connection as unknown as pg.Client).on("error", (err) =>
+          logger.warn({ err: err.message }, "database connection error"),
+        );
       },
     },
   });

@@ -89,7 +89,27 @@ blueberry raspberry watermelon pineapple mango coconut lemon lime peach plum gra
 qwerty asdfgh zxcvbn qazwsx abc abcd test admin user guest login access
 `;
 
-const suffixes = ["", "1", "12", "123", "1234", "12345", "!", "1!", "123!", "01", "007", "69", "2020", "2021", "2022", "2023", "2024", "2025", "2026"];
+const suffixes = [
+  "",
+  "1",
+  "12",
+  "123",
+  "1234",
+  "12345",
+  "!",
+  "1!",
+  "123!",
+  "01",
+  "007",
+  "69",
+  "2020",
+  "2021",
+  "2022",
+  "2023",
+  "2024",
+  "2025",
+  "2026",
+];
 
 const words = baseWords.split(/\s+/).filter(Boolean);
 

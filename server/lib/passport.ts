@@ -12,12 +12,15 @@ export const passport = new Passport();
 
 passport.use(
   "local",
-  new LocalStrategy({ usernameField: "email", passwordField: "password", passReqToCallback: true, session: false }, (req, email, password, done) => {
-    verifyCredentials(email.trim(), password, { requestId: String(req.id ?? ""), ip: req.ip ?? "" }).then(
-      (caller) => done(null, caller ?? false),
-      (err: unknown) => done(err),
-    );
-  }),
+  new LocalStrategy(
+    { usernameField: "email", passwordField: "password", passReqToCallback: true, session: false },
+    (req, email, password, done) => {
+      verifyCredentials(email.trim(), password, { requestId: String(req.id ?? ""), ip: req.ip ?? "" }).then(
+        (caller) => done(null, caller ?? false),
+        (err: unknown) => done(err),
+      );
+    },
+  ),
 );
 
 passport.serializeUser((user, done) => {

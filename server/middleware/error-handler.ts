@@ -31,7 +31,13 @@ export const errorHandler: ErrorRequestHandler = (err, req, res, _next) => {
   } else if (err?.type && typeof err.status === "number" && err.status < 500) {
     appError = new AppError(err.status, "bad_request", "The request could not be read.");
   } else if (databaseDown.has(err?.name) || databaseDown.has(err?.parent?.name) || err?.code === "ECONNREFUSED") {
-    appError = new AppError(503, "database_unavailable", "The database is not answering right now; please try again in a moment.", undefined, { "Retry-After": "5" });
+    appError = new AppError(
+      503,
+      "database_unavailable",
+      "The database is not answering right now; please try again in a moment.",
+      undefined,
+      { "Retry-After": "5" },
+    );
   } else {
     logger.error({ err, reqId: req.id }, "unexpected error");
     appError = new AppError(500, "internal", `Something went wrong on our side (request ${String(req.id ?? "")}).`);

@@ -64,7 +64,12 @@ export function handle<S extends Schemas>(
       const params = parsePart(schemas.params, req.params, "params", fields);
       if (Object.keys(fields).length > 0) {
         const names = Object.keys(fields);
-        throw new AppError(400, "invalid_input", `Please check ${names.length === 1 ? "this field" : "these fields"}: ${names.join(", ")}.`, fields);
+        throw new AppError(
+          400,
+          "invalid_input",
+          `Please check ${names.length === 1 ? "this field" : "these fields"}: ${names.join(", ")}.`,
+          fields,
+        );
       }
       const reply = await handler({
         body,

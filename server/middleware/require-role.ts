@@ -30,7 +30,11 @@ export function canManageDigester(caller: Caller | undefined, digesterId: number
 }
 
 /** Object-level check for services: throws 403 unless the caller stewards `digesterId` (or coordinates). */
-export function assertStewardOf(caller: Caller | undefined, digesterId: number, options: { coordinatorToo?: boolean } = {}): void {
+export function assertStewardOf(
+  caller: Caller | undefined,
+  digesterId: number,
+  options: { coordinatorToo?: boolean } = {},
+): void {
   if (!caller) throw unauthenticated();
   if (!canManageDigester(caller, digesterId, options.coordinatorToo ?? true)) {
     throw forbidden("You can change only the digesters you look after.");
@@ -51,7 +55,11 @@ export function assertOwnHousehold(
 }
 
 /** Object-level check for services: throws 403 unless the record belongs to the caller (or they coordinate). */
-export function assertOwnRecord(caller: Caller | undefined, ownerPersonId: number | null, options: { coordinatorToo?: boolean } = {}): void {
+export function assertOwnRecord(
+  caller: Caller | undefined,
+  ownerPersonId: number | null,
+  options: { coordinatorToo?: boolean } = {},
+): void {
   if (!caller) throw unauthenticated();
   if ((options.coordinatorToo ?? true) && caller.roles.includes("coordinator")) return;
   if (ownerPersonId !== caller.id) throw forbidden("You can see and change only your own records.");

@@ -211,5 +211,6 @@ export function handleWithSession<S extends Schemas>(
   schemas: S,
   handler: (input: HandlerInput<S> & { session: SessionControl }) => Promise<Reply | void> | Reply | void,
 ): RequestHandler {
-  return (req, res, next) => handle(schemas, (input) => handler({ ...input, session: control(req, res, next) }))(req, res, next);
+  return (req, res, next) =>
+    handle(schemas, (input) => handler({ ...input, session: control(req, res, next) }))(req, res, next);
 }

@@ -5,7 +5,13 @@
 import { describeMix, estimateFreshKg, type MassMethod, type ScrapCategory, type ScrapMix } from "./scraps";
 
 /** The quick choices a resident picks from when logging a drop-off. */
-export const DROP_OFF_MIXES = ["mixed", "fruitVeg", "cooked", "breadGrains", "coffee"] as const satisfies readonly ScrapCategory[];
+export const DROP_OFF_MIXES = [
+  "mixed",
+  "fruitVeg",
+  "cooked",
+  "breadGrains",
+  "coffee",
+] as const satisfies readonly ScrapCategory[];
 export type DropOffMix = (typeof DROP_OFF_MIXES)[number];
 
 /**
@@ -40,7 +46,11 @@ export function dropOffQuantities(input: {
   kgPerLitre?: number;
 }): DropOffQuantities {
   const litres = (input.bucketCount ?? 0) * (input.bucketLitres ?? 0);
-  const mass = estimateFreshKg({ bucketLitres: litres, kgPerLitre: input.kgPerLitre, weighedKg: input.weightKg ?? null });
+  const mass = estimateFreshKg({
+    bucketLitres: litres,
+    kgPerLitre: input.kgPerLitre,
+    weighedKg: input.weightKg ?? null,
+  });
   const composition = describeMix(dropOffMix(input.mix ?? "mixed", input.citrusPercent ?? 0));
   const freshKg = mass.freshKg as number;
   const nPercentOfTs = composition.nPercentOfTs as number;

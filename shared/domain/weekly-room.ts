@@ -64,7 +64,8 @@ export function projectWeeklyRoom(input: WeeklyRoomInput): WeeklyRoom {
   const staticCap = Math.min(
     ...[l.organicLoad, l.hydraulic, l.stability, l.startUpRamp].filter((v): v is number => v !== null),
   );
-  const history = input.previous7DaysKgVs === null ? null : input.previous7DaysKgVs.slice(-7).map((v) => Math.max(0, v));
+  const history =
+    input.previous7DaysKgVs === null ? null : input.previous7DaysKgVs.slice(-7).map((v) => Math.max(0, v));
   while (history !== null && history.length < 7) history.unshift(0);
   const fedToday = Math.max(0, input.fedTodayKgVs);
   for (let k = 0; k < 7; k++) {

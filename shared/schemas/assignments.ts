@@ -46,8 +46,12 @@ export const ApplyRequestSchema = z
 export type ApplyRequest = z.infer<typeof ApplyRequestSchema>;
 
 /** `PUT /api/households/:id/pin`. */
-export const PinRequestSchema = z.object({ pinned: z.boolean({ error: "Say pinned true or false." }), digesterId: id.optional() }).strict();
-export const HouseholdIdParamsSchema = z.object({ id: z.coerce.number({ error: "must be a number" }).int().positive().max(2_147_483_647) }).strict();
+export const PinRequestSchema = z
+  .object({ pinned: z.boolean({ error: "Say pinned true or false." }), digesterId: id.optional() })
+  .strict();
+export const HouseholdIdParamsSchema = z
+  .object({ id: z.coerce.number({ error: "must be a number" }).int().positive().max(2_147_483_647) })
+  .strict();
 
 /** One household's place in a proposal; `distanceM` in metres, `weeklyKg` in fresh kg a week. */
 export const ProposalAssignmentSchema = z.object({

@@ -48,7 +48,9 @@ export function RootLayout() {
       {user ? (
         <SessionExpiryWarning
           onExpired={sessionEnded}
-          onSignOut={() => signOut.mutate(undefined, { onSettled: () => navigate(paths.signIn(), { state: { signedOut: true } }) })}
+          onSignOut={() =>
+            signOut.mutate(undefined, { onSettled: () => navigate(paths.signIn(), { state: { signedOut: true } }) })
+          }
         />
       ) : null}
     </AppShell>

@@ -30,7 +30,8 @@ function fetchCsrfToken(): Promise<string> {
   csrfRequest ??= fetch("/api/auth/csrf", { headers: { Accept: "application/json" }, credentials: "same-origin" })
     .then(async (res) => {
       const body = (await res.json().catch(() => undefined)) as { token?: unknown } | undefined;
-      if (!res.ok || typeof body?.token !== "string") throw new ApiError(res.status, "csrf_unavailable", "Could not start a secure session. Reload the page.");
+      if (!res.ok || typeof body?.token !== "string")
+        throw new ApiError(res.status, "csrf_unavailable", "Could not start a secure session. Reload the page.");
       csrfToken = body.token;
       return body.token;
     })
@@ -82,7 +83,8 @@ async function send(url: string, method: string, options: RequestOptions<z.ZodTy
   const headers: Record<string, string> = { Accept: "application/json", ...options.headers };
   if (options.body !== undefined) headers["Content-Type"] = "application/json";
   // The public calculators keep no session, so they need no token.
-  if (method !== "GET" && !url.startsWith("/api/calc/")) headers["x-csrf-token"] = csrfToken ?? (await fetchCsrfToken());
+  if (method !== "GET" && !url.startsWith("/api/calc/"))
+    headers["x-csrf-token"] = csrfToken ?? (await fetchCsrfToken());
   try {
     return await fetch(url, {
       method,

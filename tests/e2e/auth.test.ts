@@ -39,7 +39,9 @@ async function tabTo(page: Page, name: string) {
     await page.keyboard.press("Tab");
     const here = await page.evaluate(() => {
       const el = document.activeElement as HTMLInputElement | null;
-      return (el?.labels?.[0]?.textContent ?? el?.getAttribute("aria-label") ?? el?.textContent ?? "").replace(/\s+/g, " ").trim();
+      return (el?.labels?.[0]?.textContent ?? el?.getAttribute("aria-label") ?? el?.textContent ?? "")
+        .replace(/\s+/g, " ")
+        .trim();
     });
     if (here.startsWith(name)) return;
   }
@@ -104,28 +106,31 @@ describe("signing in and out", () => {
     ["steward", false],
     ["coordinator", true],
     ["gardener", false],
-  ] as const)("when the demo %s signs in, then the navigation shows their pages (People: %s) and nothing they may not open", async (role, seesPeople) => {
-    const page = await freshPage();
-    await page.goto(h.baseUrl + "/sign-in");
-    await signInWithKeyboard(page, DEMO_SIGN_IN_EMAILS[role], DEMO_PASSWORD);
-    await page.getByRole("button", { name: "Sign out" }).waitFor();
-    const links = await mainNavLinks(page);
-    expect(links).toContain("Your account");
-    expect(links.includes("People")).toBe(seesPeople);
-    expect(await status(page, "/api/people")).toBe(seesPeople ? 200 : 403);
-    if (seesPeople) {
-      await page.getByRole("navigation", { name: "Main" }).getByRole("link", { name: "People" }).click();
-      await page.getByRole("heading", { level: 1, name: "People" }).waitFor();
-      await page.getByRole("region", { name: "People" }).waitFor();
-      expect(await axeViolations(page)).toEqual([]);
-      await page.screenshot({ path: "test-results/people.png", fullPage: true });
-    } else {
-      // Typing the address does not help: the page says it is not for them.
-      await page.goto(h.baseUrl + "/people");
-      await page.getByText(/coordinator role/).waitFor();
-    }
-    await page.close();
-  });
+  ] as const)(
+    "when the demo %s signs in, then the navigation shows their pages (People: %s) and nothing they may not open",
+    async (role, seesPeople) => {
+      const page = await freshPage();
+      await page.goto(h.baseUrl + "/sign-in");
+      await signInWithKeyboard(page, DEMO_SIGN_IN_EMAILS[role], DEMO_PASSWORD);
+      await page.getByRole("button", { name: "Sign out" }).waitFor();
+      const links = await mainNavLinks(page);
+      expect(links).toContain("Your account");
+      expect(links.includes("People")).toBe(seesPeople);
+      expect(await status(page, "/api/people")).toBe(seesPeople ? 200 : 403);
+      if (seesPeople) {
+        await page.getByRole("navigation", { name: "Main" }).getByRole("link", { name: "People" }).click();
+        await page.getByRole("heading", { level: 1, name: "People" }).waitFor();
+        await page.getByRole("region", { name: "People" }).waitFor();
+        expect(await axeViolations(page)).toEqual([]);
+        await page.screenshot({ path: "test-results/people.png", fullPage: true });
+      } else {
+        // Typing the address does not help: the page says it is not for them.
+        await page.goto(h.baseUrl + "/people");
+        await page.getByText(/coordinator role/).waitFor();
+      }
+      await page.close();
+    },
+  );
 
   it("when a signed-in person presses Sign out with the keyboard, then the session ends and they see the sign-in page", async () => {
     const page = await freshPage();
@@ -201,7 +206,9 @@ describe("session expiry", () => {
     await page.screenshot({ path: "test-results/session-warning.png" });
     // The "Stay signed in" button has the focus when the dialog opens, so Enter is the one key press.
     expect(await page.evaluate(() => document.activeElement?.textContent)).toBe("Stay signed in");
-    const stay = page.waitForResponse((res) => res.url().endsWith("/api/auth/session") && res.request().method() === "POST");
+    const stay = page.waitForResponse(
+      (res) => res.url().endsWith("/api/auth/session") && res.request().method() === "POST",
+    );
     await page.keyboard.press("Enter");
     expect((await stay).status()).toBe(200);
     await dialog.waitFor({ state: "hidden" });

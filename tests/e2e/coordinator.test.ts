@@ -46,14 +46,19 @@ describe("the coordinator's assignment board", () => {
       `SELECT id FROM digesters WHERE status = 'active' ORDER BY (lat - $1) ^ 2 + ((lng - $2) * cos(radians($1))) ^ 2 DESC LIMIT 1`,
       [home!.lat, home!.lng],
     );
-    await sql(`UPDATE households SET assigned_digester_id = $2, assignment_pinned = false WHERE id = $1`, [home!.id, far!.id]);
+    await sql(`UPDATE households SET assigned_digester_id = $2, assignment_pinned = false WHERE id = $1`, [
+      home!.id,
+      far!.id,
+    ]);
     const mailsBefore = (await mailsTo(DEMO_SIGN_IN_EMAILS.resident)).length;
 
     const page = await h.newPage();
     await page.setViewportSize({ width: 1280, height: 900 });
     await signIn(page, DEMO_SIGN_IN_EMAILS.coordinator, "/coordinator");
     await page.getByRole("heading", { level: 1, name: "Assignments" }).waitFor();
-    expect(await page.getByRole("navigation", { name: "Main" }).getByRole("link", { name: "Assignments" }).count()).toBe(1);
+    expect(
+      await page.getByRole("navigation", { name: "Main" }).getByRole("link", { name: "Assignments" }).count(),
+    ).toBe(1);
     expect(await axeViolations(page)).toEqual([]);
 
     // A walking limit that is not a distance is named under its field, and nothing runs.
@@ -78,7 +83,11 @@ describe("the coordinator's assignment board", () => {
 
     // Pin it to the proposed digester: the proposal runs again with the pin.
     await row.getByRole("button", { name: new RegExp(`^Pin ${home!.name}`) }).click();
-    await table.getByRole("row").filter({ hasText: home!.name }).getByRole("button", { name: new RegExp(`^Unpin ${home!.name}`) }).waitFor();
+    await table
+      .getByRole("row")
+      .filter({ hasText: home!.name })
+      .getByRole("button", { name: new RegExp(`^Unpin ${home!.name}`) })
+      .waitFor();
 
     await page.getByRole("button", { name: /^Apply \d+ changes?$/ }).click();
     const dialog = page.getByRole("dialog", { name: "Apply this proposal?" });

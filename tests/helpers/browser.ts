@@ -72,6 +72,12 @@ export async function startHarness(): Promise<BrowserHarness> {
 
 /** axe-core with the WCAG tags QUALITY.md names; returns the violations (expect none). */
 export async function axeViolations(page: Page) {
-  const results = await new AxeBuilder({ page }).withTags(["wcag2a", "wcag2aa", "wcag21a", "wcag21aa", "wcag22aa"]).analyze();
-  return results.violations.map((v) => ({ id: v.id, help: v.help, nodes: v.nodes.map((n) => n.target.join(" ")).slice(0, 5) }));
+  const results = await new AxeBuilder({ page })
+    .withTags(["wcag2a", "wcag2aa", "wcag21a", "wcag21aa", "wcag22aa"])
+    .analyze();
+  return results.violations.map((v) => ({
+    id: v.id,
+    help: v.help,
+    nodes: v.nodes.map((n) => n.target.join(" ")).slice(0, 5),
+  }));
 }

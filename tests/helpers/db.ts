@@ -34,7 +34,10 @@ export function uniqueEmail(label = "person"): string {
 }
 
 /** Runs SQL with `$1`-style parameters and returns the rows (for arranging and asserting). */
-export async function sql<T extends object = Record<string, unknown>>(query: string, bind: unknown[] = []): Promise<T[]> {
+export async function sql<T extends object = Record<string, unknown>>(
+  query: string,
+  bind: unknown[] = [],
+): Promise<T[]> {
   return sequelize().query<T>(query, { bind, type: QueryTypes.SELECT });
 }
 
@@ -97,9 +100,20 @@ export async function createPerson(options: CreatePersonOptions = {}): Promise<T
   );
   const id = row!.id;
   for (const digesterId of options.stewardOf ?? []) {
-    await sql(`INSERT INTO digester_stewards (digester_id, person_id) VALUES ($1, $2) RETURNING person_id`, [digesterId, id]);
+    await sql(`INSERT INTO digester_stewards (digester_id, person_id) VALUES ($1, $2) RETURNING person_id`, [
+      digesterId,
+      id,
+    ]);
   }
-  return { id, email, name, roles, password, householdId: options.householdId ?? null, stewardOf: options.stewardOf ?? [] };
+  return {
+    id,
+    email,
+    name,
+    roles,
+    password,
+    householdId: options.householdId ?? null,
+    stewardOf: options.stewardOf ?? [],
+  };
 }
 
 export interface CreateDigesterOptions {
@@ -119,13 +133,23 @@ export async function createDigester(options: CreateDigesterOptions = {}): Promi
   const [row] = await sql<{ id: number }>(
     `INSERT INTO digesters (name, lat, lng, working_volume_m3, status, status_reason, started_on)
      VALUES ($1, $2, $3, $4, $5, $6, $7) RETURNING id`,
-    [name, options.lat ?? 51.5, options.lng ?? -0.1, options.workingVolumeM3 ?? 1, status, status === "active" ? null : "test", options.startedOn ?? "2026-01-05"],
+    [
+      name,
+      options.lat ?? 51.5,
+      options.lng ?? -0.1,
+      options.workingVolumeM3 ?? 1,
+      status,
+      status === "active" ? null : "test",
+      options.startedOn ?? "2026-01-05",
+    ],
   );
   return { id: row!.id, name };
 }
 
 /** Inserts a household (optionally assigned to a digester). */
-export async function createHousehold(options: { name?: string; assignedDigesterId?: number | null; lat?: number; lng?: number } = {}) {
+export async function createHousehold(
+  options: { name?: string; assignedDigesterId?: number | null; lat?: number; lng?: number } = {},
+) {
   sequence += 1;
   const name = options.name ?? `Test household ${sequence}`;
   const [row] = await sql<{ id: number }>(
@@ -149,7 +173,11 @@ export async function csrfToken(agent: Agent): Promise<string> {
  * new session's CSRF token (sign-in starts a new session, so the old token is void).
  * Throws when sign-in does not answer 200.
  */
-export async function signIn(agent: Agent, email: string, password: string): Promise<{ csrf: string; user: SessionUser }> {
+export async function signIn(
+  agent: Agent,
+  email: string,
+  password: string,
+): Promise<{ csrf: string; user: SessionUser }> {
   const before = await csrfToken(agent);
   const res = await agent.post("/api/auth/login").set("x-csrf-token", before).send({ email, password });
   if (res.status !== 200) throw new Error(`sign-in as ${email} answered ${res.status}: ${JSON.stringify(res.body)}`);
@@ -204,7 +232,10 @@ export async function clientFor(app: Express, person: TestPerson): Promise<ApiCl
 }
 
 /** Creates a fresh person with these options and returns a client signed in as them. */
-export async function signedInClient(app: Express, options: CreatePersonOptions = {}): Promise<ApiClient & { person: TestPerson }> {
+export async function signedInClient(
+  app: Express,
+  options: CreatePersonOptions = {},
+): Promise<ApiClient & { person: TestPerson }> {
   const person = await createPerson(options);
   return (await clientFor(app, person)) as ApiClient & { person: TestPerson };
 }
@@ -214,7 +245,10 @@ export function sessionIdFromCookies(setCookie: string[] | string | undefined): 
   const list = Array.isArray(setCookie) ? setCookie : setCookie ? [setCookie] : [];
   for (const cookie of list) {
     const match = /hearthloop\.sid=([^;]+)/.exec(cookie);
-    if (match) return decodeURIComponent(match[1]!).replace(/^s:/, "").replace(/\.[^.]+$/, "");
+    if (match)
+      return decodeURIComponent(match[1]!)
+        .replace(/^s:/, "")
+        .replace(/\.[^.]+$/, "");
   }
   return undefined;
 }

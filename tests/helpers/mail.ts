@@ -33,8 +33,16 @@ async function answering(): Promise<boolean> {
 export async function ensureMailDev(): Promise<{ stop: () => Promise<void> }> {
   if (await answering()) return { stop: async () => undefined };
   const web = new URL(MAILDEV_WEB_URL);
-  const smtpPort = Number(new URL((process.env.SMTP_URL ?? "smtp://127.0.0.1:1026").replace(/^smtp/, "http")).port || 1026);
-  const maildev = new MailDev({ smtp: smtpPort, web: Number(web.port), ip: "127.0.0.1", webIp: "127.0.0.1", silent: true });
+  const smtpPort = Number(
+    new URL((process.env.SMTP_URL ?? "smtp://127.0.0.1:1026").replace(/^smtp/, "http")).port || 1026,
+  );
+  const maildev = new MailDev({
+    smtp: smtpPort,
+    web: Number(web.port),
+    ip: "127.0.0.1",
+    webIp: "127.0.0.1",
+    silent: true,
+  });
   await maildev.start();
   return { stop: () => maildev.stop() };
 }

@@ -64,7 +64,13 @@ interface Row {
   fresh?: boolean;
 }
 
-const everyone = (status: number): Expectation => ({ anonymous: status, resident: status, steward: status, coordinator: status, gardener: status });
+const everyone = (status: number): Expectation => ({
+  anonymous: status,
+  resident: status,
+  steward: status,
+  coordinator: status,
+  gardener: status,
+});
 const signedIn = (status: number): Expectation => ({ ...everyone(status), anonymous: 401 });
 const only = (roles: Exclude<Who, "anonymous">[], status: number): Expectation => ({
   anonymous: 401,
@@ -106,15 +112,24 @@ const table: Row[] = [
   // ── auth (issue 3) ──
   row("GET /api/auth/csrf", everyone(200)),
   // A wrong password for an unknown address: 401 for everyone (a unique address, so no throttling).
-  row("POST /api/auth/login", everyone(401), { request: () => ({ body: { email: uniqueEmail("access"), password: "not-the-password" } }) }),
+  row("POST /api/auth/login", everyone(401), {
+    request: () => ({ body: { email: uniqueEmail("access"), password: "not-the-password" } }),
+  }),
   row("GET /api/auth/me", signedIn(200)),
   row("POST /api/auth/logout", everyone(204), { fresh: true }),
   row("GET /api/auth/session", signedIn(200)),
   row("POST /api/auth/session", signedIn(200), { request: () => ({ body: {} }) }),
-  row("POST /api/auth/password-reset", everyone(202), { request: () => ({ body: { email: uniqueEmail("access-reset") } }) }),
-  row("GET /api/auth/password-reset/:token", everyone(404), { request: () => ({ path: `/api/auth/password-reset/${unknownToken()}` }) }),
+  row("POST /api/auth/password-reset", everyone(202), {
+    request: () => ({ body: { email: uniqueEmail("access-reset") } }),
+  }),
+  row("GET /api/auth/password-reset/:token", everyone(404), {
+    request: () => ({ path: `/api/auth/password-reset/${unknownToken()}` }),
+  }),
   row("POST /api/auth/password-reset/:token", everyone(404), {
-    request: () => ({ path: `/api/auth/password-reset/${unknownToken()}`, body: { password: "a long new passphrase" } }),
+    request: () => ({
+      path: `/api/auth/password-reset/${unknownToken()}`,
+      body: { password: "a long new passphrase" },
+    }),
   }),
 
   // ── people (issue 3) ──
@@ -123,14 +138,22 @@ const table: Row[] = [
     request: () => ({ body: { email: uniqueEmail("access-invite"), roles: ["resident"] } }),
   }),
   row("PATCH /api/people/:id", only(["coordinator"], 200), {
-    request: async () => ({ path: `/api/people/${(await createPerson()).id}`, body: { name: "Renamed by access test" } }),
+    request: async () => ({
+      path: `/api/people/${(await createPerson()).id}`,
+      body: { name: "Renamed by access test" },
+    }),
   }),
   row("PUT /api/digesters/:id/stewards", only(["coordinator"], 200), {
     request: async () => ({ path: `/api/digesters/${(await createDigester()).id}/stewards`, body: { personIds: [] } }),
   }),
-  row("GET /api/invitations/:token", everyone(404), { request: () => ({ path: `/api/invitations/${unknownToken()}` }) }),
+  row("GET /api/invitations/:token", everyone(404), {
+    request: () => ({ path: `/api/invitations/${unknownToken()}` }),
+  }),
   row("POST /api/invitations/:token/accept", everyone(404), {
-    request: () => ({ path: `/api/invitations/${unknownToken()}/accept`, body: { name: "Someone", password: "a long new passphrase" } }),
+    request: () => ({
+      path: `/api/invitations/${unknownToken()}/accept`,
+      body: { name: "Someone", password: "a long new passphrase" },
+    }),
   }),
   row("GET /api/outbox-emails", only(["coordinator"], 200)),
 
@@ -152,16 +175,23 @@ const table: Row[] = [
   row("POST /api/households", only(["resident"], 201), {
     fresh: true,
     request: async (ctx) => {
-      if (ctx.who === "resident") await sql(`UPDATE people SET household_id = NULL WHERE id = $1 RETURNING id`, [ctx.person!.id]);
+      if (ctx.who === "resident")
+        await sql(`UPDATE people SET household_id = NULL WHERE id = $1 RETURNING id`, [ctx.person!.id]);
       return { body: { name: "Access-table household", location: { lat: 51.5, lng: -0.1 } } };
     },
   }),
   row("GET /api/households/mine", signedIn(200)),
-  row("PATCH /api/households/mine", only(["resident"], 200), { request: () => ({ body: { addressText: "1 Access Row" } }) }),
-  row("POST /api/households/mine/members", only(["resident"], 201), { request: () => ({ body: { email: uniqueEmail("access-member") } }) }),
+  row("PATCH /api/households/mine", only(["resident"], 200), {
+    request: () => ({ body: { addressText: "1 Access Row" } }),
+  }),
+  row("POST /api/households/mine/members", only(["resident"], 201), {
+    request: () => ({ body: { email: uniqueEmail("access-member") } }),
+  }),
   row("GET /api/households/mine/impact", signedIn(200)),
   row("POST /api/drop-offs", only(["resident"], 201), {
-    request: (ctx) => ({ body: { digesterId: ctx.ownDigesterId, bucketCount: 1, bucketLitres: 10, noRefuseConfirmed: true } }),
+    request: (ctx) => ({
+      body: { digesterId: ctx.ownDigesterId, bucketCount: 1, bucketLitres: 10, noRefuseConfirmed: true },
+    }),
   }),
   row("GET /api/drop-offs", signedIn(200), { request: () => ({ path: "/api/drop-offs?mine=true" }) }),
   // The resident cancels a pending drop-off of their own household; the other roles are refused by role.
@@ -181,16 +211,28 @@ const table: Row[] = [
   // digester has no temperature, so budget-spending rows carry an override with a reason.
   row("GET /api/steward/today", only(["steward", "coordinator"], 200)),
   row("POST /api/drop-offs/:id/accept", only(["steward", "coordinator"], 200), {
-    request: async (ctx) => ({ path: `/api/drop-offs/${await accessDropOff(ctx, "pending")}/accept`, body: { override: { reason: "access table" } } }),
+    request: async (ctx) => ({
+      path: `/api/drop-offs/${await accessDropOff(ctx, "pending")}/accept`,
+      body: { override: { reason: "access table" } },
+    }),
   }),
   row("POST /api/drop-offs/:id/feed", only(["steward", "coordinator"], 200), {
-    request: async (ctx) => ({ path: `/api/drop-offs/${await accessDropOff(ctx, "accepted")}/feed`, body: { override: { reason: "access table" } } }),
+    request: async (ctx) => ({
+      path: `/api/drop-offs/${await accessDropOff(ctx, "accepted")}/feed`,
+      body: { override: { reason: "access table" } },
+    }),
   }),
   row("POST /api/drop-offs/:id/turn-away", only(["steward", "coordinator"], 200), {
-    request: async (ctx) => ({ path: `/api/drop-offs/${await accessDropOff(ctx, "pending")}/turn-away`, body: { reason: "contamination" } }),
+    request: async (ctx) => ({
+      path: `/api/drop-offs/${await accessDropOff(ctx, "pending")}/turn-away`,
+      body: { reason: "contamination" },
+    }),
   }),
   row("POST /api/digesters/:id/feedings", only(["steward", "coordinator"], 201), {
-    request: (ctx) => ({ path: `/api/digesters/${ctx.ownDigesterId}/feedings`, body: { freshKg: 1, override: { reason: "access table" } } }),
+    request: (ctx) => ({
+      path: `/api/digesters/${ctx.ownDigesterId}/feedings`,
+      body: { freshKg: 1, override: { reason: "access table" } },
+    }),
   }),
   row("GET /api/digesters/:id/feedings", only(["steward", "coordinator"], 200), {
     request: (ctx) => ({ path: `/api/digesters/${ctx.ownDigesterId}/feedings` }),
@@ -199,7 +241,10 @@ const table: Row[] = [
     request: (ctx) => ({ path: `/api/digesters/${ctx.ownDigesterId}/feedings.csv` }),
   }),
   row("POST /api/digesters/:id/readings", only(["steward", "coordinator"], 201), {
-    request: (ctx) => ({ path: `/api/digesters/${ctx.ownDigesterId}/readings`, body: { takenAt: new Date().toISOString(), temperatureC: 31 } }),
+    request: (ctx) => ({
+      path: `/api/digesters/${ctx.ownDigesterId}/readings`,
+      body: { takenAt: new Date().toISOString(), temperatureC: 31 },
+    }),
   }),
   // Readings are the digester's working record: its stewards and coordinators read them, residents and gardeners do not.
   row("GET /api/digesters/:id/readings", only(["steward", "coordinator"], 200), {
@@ -210,12 +255,21 @@ const table: Row[] = [
   }),
   // Uploads are for the digester's own stewards only (QUALITY.md: steward-only). This table cannot attach a
   // file, so the steward's request reaches the handler and gets 400 "attach a file" (tests/server/readings-import.test.ts uploads).
-  row("POST /api/digesters/:id/readings/import", { ...only(["steward"], 400) }, {
-    request: (ctx) => ({ path: `/api/digesters/${ctx.ownDigesterId}/readings/import` }),
+  row(
+    "POST /api/digesters/:id/readings/import",
+    { ...only(["steward"], 400) },
+    {
+      request: (ctx) => ({ path: `/api/digesters/${ctx.ownDigesterId}/readings/import` }),
+    },
+  ),
+  row("GET /api/digesters/:id", only(["steward", "coordinator"], 200), {
+    request: (ctx) => ({ path: `/api/digesters/${ctx.ownDigesterId}` }),
   }),
-  row("GET /api/digesters/:id", only(["steward", "coordinator"], 200), { request: (ctx) => ({ path: `/api/digesters/${ctx.ownDigesterId}` }) }),
   row("PATCH /api/digesters/:id", only(["steward", "coordinator"], 200), {
-    request: (ctx) => ({ path: `/api/digesters/${ctx.ownDigesterId}`, body: { siteDescription: "Behind the access-table shed" } }),
+    request: (ctx) => ({
+      path: `/api/digesters/${ctx.ownDigesterId}`,
+      body: { siteDescription: "Behind the access-table shed" },
+    }),
   }),
   row("PUT /api/digesters/:id/status", only(["steward", "coordinator"], 200), {
     request: (ctx) => ({ path: `/api/digesters/${ctx.ownDigesterId}/status`, body: { status: "active" } }),
@@ -225,9 +279,13 @@ const table: Row[] = [
   }),
 
   // ── coordinator's board (issue 6) ──
-  row("POST /api/assignments/proposals", only(["coordinator"], 200), { request: () => ({ body: { excludeDigesterIds: [] } }) }),
+  row("POST /api/assignments/proposals", only(["coordinator"], 200), {
+    request: () => ({ body: { excludeDigesterIds: [] } }),
+  }),
   // A version that matches no assignment: the coordinator reaches the check and is told it is stale.
-  row("POST /api/assignments/apply", only(["coordinator"], 409), { request: () => ({ body: { version: "stale", changes: [] } }) }),
+  row("POST /api/assignments/apply", only(["coordinator"], 409), {
+    request: () => ({ body: { version: "stale", changes: [] } }),
+  }),
   row("PUT /api/households/:id/pin", only(["coordinator"], 200), {
     request: (ctx) => ({ path: `/api/households/${ctx.otherHouseholdId}/pin`, body: { pinned: false } }),
   }),
@@ -237,21 +295,37 @@ const table: Row[] = [
     request: (ctx) => ({ body: { moves: [{ dropOffId: 999999999, digesterId: ctx.otherDigesterId }] } }),
   }),
   // Collections: a day with no request from anyone here; the table's resident has a household, the steward none (409).
-  row("POST /api/collection-requests", { ...only(["resident"], 201) }, {
-    request: () => ({ body: { forDate: addDays(localDate(new Date()), 30 + Math.floor(Math.random() * 29)), bucketCount: 1 } }),
+  row(
+    "POST /api/collection-requests",
+    { ...only(["resident"], 201) },
+    {
+      request: () => ({
+        body: { forDate: addDays(localDate(new Date()), 30 + Math.floor(Math.random() * 29)), bucketCount: 1 },
+      }),
+    },
+  ),
+  row("GET /api/collection-requests", signedIn(200), {
+    request: () => ({ path: "/api/collection-requests?mine=true" }),
   }),
-  row("GET /api/collection-requests", signedIn(200), { request: () => ({ path: "/api/collection-requests?mine=true" }) }),
   // Request 999999999 does not exist: residents and coordinators reach the service (404).
-  row("POST /api/collection-requests/:id/cancel", { ...only(["resident", "coordinator"], 404) }, {
-    request: () => ({ path: "/api/collection-requests/999999999/cancel", body: {} }),
-  }),
+  row(
+    "POST /api/collection-requests/:id/cancel",
+    { ...only(["resident", "coordinator"], 404) },
+    {
+      request: () => ({ path: "/api/collection-requests/999999999/cancel", body: {} }),
+    },
+  ),
   row("POST /api/collection-rounds/plan", only(["coordinator"], 200), {
     request: () => ({ body: { forDate: addDays(localDate(new Date()), 59) } }),
   }),
   row("GET /api/collection-rounds", signedIn(200)),
   // Round 999999999 does not exist: anyone signed in reaches the service (404), whose guard follows the lookup.
-  row("GET /api/collection-rounds/:id", signedIn(404), { request: () => ({ path: "/api/collection-rounds/999999999" }) }),
-  row("GET /api/collection-rounds/:id/geojson", signedIn(404), { request: () => ({ path: "/api/collection-rounds/999999999/geojson" }) }),
+  row("GET /api/collection-rounds/:id", signedIn(404), {
+    request: () => ({ path: "/api/collection-rounds/999999999" }),
+  }),
+  row("GET /api/collection-rounds/:id/geojson", signedIn(404), {
+    request: () => ({ path: "/api/collection-rounds/999999999/geojson" }),
+  }),
   row("POST /api/collection-rounds/:id/stops/:requestId/collected", signedIn(404), {
     request: () => ({ path: "/api/collection-rounds/999999999/stops/1/collected", body: {} }),
   }),
@@ -270,7 +344,10 @@ const table: Row[] = [
 
 const app = createApp({ requestLogging: false });
 
-const personOptions: Record<Exclude<Who, "anonymous">, (ctx: { ownDigesterId: number; ownHouseholdId: number }) => CreatePersonOptions> = {
+const personOptions: Record<
+  Exclude<Who, "anonymous">,
+  (ctx: { ownDigesterId: number; ownHouseholdId: number }) => CreatePersonOptions
+> = {
   resident: (c) => ({ roles: ["resident"], householdId: c.ownHouseholdId }),
   steward: (c) => ({ roles: ["steward"], stewardOf: [c.ownDigesterId] }),
   coordinator: () => ({ roles: ["coordinator"] }),
@@ -298,8 +375,14 @@ describe("route × role access table", () => {
   it("when the router is walked, then every API route has a row and every row a route", () => {
     const routes = listApiRoutes(app);
     const declared = table.map((r) => r.route);
-    expect(routes.filter((r) => !declared.includes(r)), "routes missing from the access table").toEqual([]);
-    expect(declared.filter((r) => !routes.includes(r)), "rows for routes that do not exist").toEqual([]);
+    expect(
+      routes.filter((r) => !declared.includes(r)),
+      "routes missing from the access table",
+    ).toEqual([]);
+    expect(
+      declared.filter((r) => !routes.includes(r)),
+      "rows for routes that do not exist",
+    ).toEqual([]);
     expect(new Set(declared).size, "each route declared once").toBe(declared.length);
   });
 

@@ -12,7 +12,10 @@ function remoteSpot() {
 /** A warm, stable digester: a fresh temperature and pH reading give it a feed budget. */
 async function warmDigester(at: { lat: number; lng: number }, status: "active" | "resting" | "offline" = "active") {
   const d = await createDigester({ ...at, status, workingVolumeM3: 2 });
-  await sql(`INSERT INTO readings (digester_id, taken_at, temperature_c, ph) VALUES ($1, now() - interval '1 hour', 30, 7.1)`, [d.id]);
+  await sql(
+    `INSERT INTO readings (digester_id, taken_at, temperature_c, ph) VALUES ($1, now() - interval '1 hour', 30, 7.1)`,
+    [d.id],
+  );
   return d;
 }
 
@@ -38,7 +41,9 @@ async function scene() {
   const near = await warmDigester({ lat: spot.lat + 0.01, lng: spot.lng });
   const households = [];
   for (let i = 0; i < 3; i++) {
-    households.push(await createHousehold({ lat: spot.lat + 0.01 + i * 0.0001, lng: spot.lng, assignedDigesterId: far.id }));
+    households.push(
+      await createHousehold({ lat: spot.lat + 0.01 + i * 0.0001, lng: spot.lng, assignedDigesterId: far.id }),
+    );
   }
   return { spot, far, near, households };
 }
@@ -101,7 +106,10 @@ describe("assignment proposals", () => {
       const a = res.body.assignments.find((x: { householdId: number }) => x.householdId === h.id);
       expect(a.toDigesterId).toBe(far.id);
     }
-    expect(res.body.digesters.find((d: { id: number }) => d.id === near.id)).toMatchObject({ excluded: true, loadKg: 0 });
+    expect(res.body.digesters.find((d: { id: number }) => d.id === near.id)).toMatchObject({
+      excluded: true,
+      loadKg: 0,
+    });
   });
 });
 
@@ -121,9 +129,10 @@ describe("applying a proposal", () => {
     );
     expect(rows.map((r) => r.a)).toEqual([near.id, near.id, near.id]);
     expect(rows.map((r) => r.p)).toEqual([false, true, false]);
-    const mail = await sql<{ subject: string; text_body: string }>(`SELECT subject, text_body FROM outbox_emails WHERE to_address = $1`, [
-      resident.email,
-    ]);
+    const mail = await sql<{ subject: string; text_body: string }>(
+      `SELECT subject, text_body FROM outbox_emails WHERE to_address = $1`,
+      [resident.email],
+    );
     expect(mail).toHaveLength(1);
     expect(mail[0]!.subject).toContain(near.name);
     // The households sit beside "near" and 1.1 km from "far", which has room: the e-mail says so.
@@ -168,7 +177,9 @@ describe("pins", () => {
   it("pins a household to a digester and unpins it", async () => {
     const { near, households } = await scene();
     const coordinator = await signedInClient(app, { roles: ["coordinator"] });
-    const res = await coordinator.put(`/api/households/${households[0]!.id}/pin`).send({ pinned: true, digesterId: near.id });
+    const res = await coordinator
+      .put(`/api/households/${households[0]!.id}/pin`)
+      .send({ pinned: true, digesterId: near.id });
     expect(res.status).toBe(200);
     expect(res.body).toMatchObject({ assignedDigesterId: near.id, pinned: true });
     const off = await coordinator.put(`/api/households/${households[0]!.id}/pin`).send({ pinned: false });

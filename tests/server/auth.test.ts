@@ -5,11 +5,21 @@ import request from "supertest";
 import { createApp } from "../../server/app";
 import { parseEnv } from "../../server/config/env";
 import { securityLogger } from "../../server/lib/security-log";
-import { ABSOLUTE_TIMEOUT_MS, IDLE_TIMEOUT_MS, sessionCookieSettings, TOUCH_INTERVAL_MS } from "../../server/middleware/session";
+import {
+  ABSOLUTE_TIMEOUT_MS,
+  IDLE_TIMEOUT_MS,
+  sessionCookieSettings,
+  TOUCH_INTERVAL_MS,
+} from "../../server/middleware/session";
 import { deliverDueEmails } from "../../server/modules/outbox/outbox.service";
 import { SIGN_IN_MAX_FAILURES } from "../../server/modules/auth/sign-in-throttle";
 import { pruneExpired } from "../../server/modules/auth/housekeeping.service";
-import { assertOwnHousehold, assertOwnRecord, assertStewardOf, canManageDigester } from "../../server/middleware/require-role";
+import {
+  assertOwnHousehold,
+  assertOwnRecord,
+  assertStewardOf,
+  canManageDigester,
+} from "../../server/middleware/require-role";
 import type { Caller } from "../../server/middleware/handle";
 import {
   anonymousClient,
@@ -41,7 +51,10 @@ afterEach(() => {
 });
 
 async function sessionRow(sid: string | undefined) {
-  return sql<{ sid: string; sess: Record<string, unknown>; expire: Date }>(`SELECT sid, sess, expire FROM sessions WHERE sid = $1`, [sid]);
+  return sql<{ sid: string; sess: Record<string, unknown>; expire: Date }>(
+    `SELECT sid, sess, expire FROM sessions WHERE sid = $1`,
+    [sid],
+  );
 }
 
 /** Logs in by hand (not through the helper) to see the raw response. */
@@ -104,7 +117,10 @@ describe("POST /api/auth/login", () => {
     const token = await csrfToken(agent);
     const time = async (email: string) => {
       const t0 = performance.now();
-      const res = await agent.post("/api/auth/login").set("x-csrf-token", token).send({ email, password: "not-the-password" });
+      const res = await agent
+        .post("/api/auth/login")
+        .set("x-csrf-token", token)
+        .send({ email, password: "not-the-password" });
       expect(res.status).toBe(401);
       return performance.now() - t0;
     };
@@ -151,7 +167,10 @@ describe("POST /api/auth/login", () => {
     const visitorSid = sessionIdFromCookies(csrf.headers["set-cookie"]);
     expect(visitorSid).toBeDefined();
     expect(await sessionRow(visitorSid)).toHaveLength(1);
-    const res = await agent.post("/api/auth/login").set("x-csrf-token", csrf.body.token).send({ email: person.email, password: TEST_PASSWORD });
+    const res = await agent
+      .post("/api/auth/login")
+      .set("x-csrf-token", csrf.body.token)
+      .send({ email: person.email, password: TEST_PASSWORD });
     expect(res.status).toBe(200);
     const signedInSid = sessionIdFromCookies(res.headers["set-cookie"]);
     expect(signedInSid).toBeDefined();
@@ -177,7 +196,14 @@ describe("GET /api/auth/me and POST /api/auth/logout", () => {
     const client = await clientFor(app, person);
     const res = await client.get("/api/auth/me");
     expect(res.status).toBe(200);
-    expect(res.body).toEqual({ id: person.id, email: person.email, name: person.name, roles: ["gardener"], stewardOf: [], householdId: null });
+    expect(res.body).toEqual({
+      id: person.id,
+      email: person.email,
+      name: person.name,
+      roles: ["gardener"],
+      stewardOf: [],
+      householdId: null,
+    });
     expect(res.headers["cache-control"]).toBe("no-store");
   });
 
@@ -276,7 +302,10 @@ describe("CSRF protection", () => {
     const other = await anonymousClient(app);
     const spy = vi.spyOn(securityLogger, "info");
     const none = await client.agent.patch("/api/account").send({ name: "Changed" });
-    const wrong = await client.agent.patch("/api/account").set("x-csrf-token", "0".repeat(64)).send({ name: "Changed" });
+    const wrong = await client.agent
+      .patch("/api/account")
+      .set("x-csrf-token", "0".repeat(64))
+      .send({ name: "Changed" });
     const foreign = await client.agent.patch("/api/account").set("x-csrf-token", other.csrf).send({ name: "Changed" });
     for (const res of [none, wrong, foreign]) {
       expect(res.status).toBe(403);
@@ -352,11 +381,17 @@ describe("sign-in throttling", () => {
     const agent = request.agent(app);
     const token = await csrfToken(agent);
     for (let i = 0; i < SIGN_IN_MAX_FAILURES; i++) {
-      const res = await agent.post("/api/auth/login").set("x-csrf-token", token).send({ email: person.email, password: `wrong-${i}-password` });
+      const res = await agent
+        .post("/api/auth/login")
+        .set("x-csrf-token", token)
+        .send({ email: person.email, password: `wrong-${i}-password` });
       expect(res.status).toBe(401);
     }
     const spy = vi.spyOn(securityLogger, "info");
-    const blocked = await agent.post("/api/auth/login").set("x-csrf-token", token).send({ email: person.email, password: TEST_PASSWORD });
+    const blocked = await agent
+      .post("/api/auth/login")
+      .set("x-csrf-token", token)
+      .send({ email: person.email, password: TEST_PASSWORD });
     expect(blocked.status).toBe(429);
     expect(blocked.body.error.code).toBe("too_many_attempts");
     const retryAfter = Number(blocked.headers["retry-after"]);
@@ -371,7 +406,10 @@ describe("sign-in throttling", () => {
     const agent = request.agent(app);
     const token = await csrfToken(agent);
     for (let i = 0; i <= SIGN_IN_MAX_FAILURES; i++) {
-      await agent.post("/api/auth/login").set("x-csrf-token", token).send({ email: locked.email, password: `wrong-${i}-password` });
+      await agent
+        .post("/api/auth/login")
+        .set("x-csrf-token", token)
+        .send({ email: locked.email, password: `wrong-${i}-password` });
     }
     expect((await login(request.agent(app), locked.email, TEST_PASSWORD)).status).toBe(429);
     expect((await login(request.agent(app), neighbour.email, TEST_PASSWORD)).status).toBe(200);
@@ -389,7 +427,9 @@ describe("sign-in throttling", () => {
     const agent = request.agent(app);
     const token = await csrfToken(agent);
     for (let i = 0; i < SIGN_IN_MAX_FAILURES + 2; i++) {
-      expect((await agent.post("/api/auth/login").set("x-csrf-token", token).send({ email: person.email })).status).toBe(400);
+      expect(
+        (await agent.post("/api/auth/login").set("x-csrf-token", token).send({ email: person.email })).status,
+      ).toBe(400);
     }
     // The limiter takes back non-failures after the response; give that write a moment.
     await new Promise((r) => setTimeout(r, 100));
@@ -403,14 +443,24 @@ describe("security log", () => {
     const spy = vi.spyOn(securityLogger, "info");
     const agent = request.agent(app);
     const token = await csrfToken(agent);
-    await agent.post("/api/auth/login").set("x-csrf-token", token).send({ email: person.email, password: "a-wrong-password" });
-    const ok = await agent.post("/api/auth/login").set("x-csrf-token", token).send({ email: person.email, password: TEST_PASSWORD });
+    await agent
+      .post("/api/auth/login")
+      .set("x-csrf-token", token)
+      .send({ email: person.email, password: "a-wrong-password" });
+    const ok = await agent
+      .post("/api/auth/login")
+      .set("x-csrf-token", token)
+      .send({ email: person.email, password: TEST_PASSWORD });
     const lines = spy.mock.calls.map(([line]) => line as Record<string, unknown>);
     const failed = lines.filter((l) => l.event === "sign_in_failed");
     const succeeded = lines.filter((l) => l.event === "sign_in_succeeded");
     expect(failed).toHaveLength(1);
     expect(succeeded).toHaveLength(1);
-    expect(failed[0]).toMatchObject({ email: person.email, reason: "wrong_password", ip: expect.stringContaining("127.0.0.1") });
+    expect(failed[0]).toMatchObject({
+      email: person.email,
+      reason: "wrong_password",
+      ip: expect.stringContaining("127.0.0.1"),
+    });
     expect(succeeded[0]).toMatchObject({ userId: person.id, reqId: expect.stringMatching(/^[0-9a-f-]{36}$/) });
     const sid = sessionIdFromCookies(ok.headers["set-cookie"])!;
     const written = JSON.stringify(spy.mock.calls);
@@ -425,7 +475,9 @@ describe("security log", () => {
     const spy = vi.spyOn(securityLogger, "info");
     expect((await client.get("/api/people")).status).toBe(403);
     const lines = spy.mock.calls.map(([line]) => line as Record<string, unknown>);
-    expect(lines).toEqual([expect.objectContaining({ event: "forbidden", userId: resident.id, method: "GET", path: "/api/people" })]);
+    expect(lines).toEqual([
+      expect.objectContaining({ event: "forbidden", userId: resident.id, method: "GET", path: "/api/people" }),
+    ]);
   });
 });
 
@@ -439,9 +491,14 @@ describe("password reset", () => {
     expect(a.status).toBe(202);
     expect(b.status).toBe(202);
     expect(a.body).toEqual(b.body);
-    expect(await sql(`SELECT 1 FROM outbox_emails WHERE to_address = $1 AND status = 'pending'`, [person.email])).toHaveLength(1);
+    expect(
+      await sql(`SELECT 1 FROM outbox_emails WHERE to_address = $1 AND status = 'pending'`, [person.email]),
+    ).toHaveLength(1);
     expect(await sql(`SELECT 1 FROM outbox_emails WHERE to_address = $1`, [nobody])).toHaveLength(0);
-    const [reset] = await sql<{ token_hash: string; expires_at: Date }>(`SELECT token_hash, expires_at FROM password_resets WHERE person_id = $1`, [person.id]);
+    const [reset] = await sql<{ token_hash: string; expires_at: Date }>(
+      `SELECT token_hash, expires_at FROM password_resets WHERE person_id = $1`,
+      [person.id],
+    );
     expect(reset!.token_hash).toMatch(/^[0-9a-f]{64}$/);
     const ttlMs = new Date(reset!.expires_at).getTime() - Date.now();
     expect(ttlMs).toBeGreaterThan(59 * 60_000);
@@ -480,14 +537,18 @@ describe("password reset", () => {
     const person = await createPerson();
     const client = await anonymousClient(app);
     await client.post("/api/auth/password-reset").send({ email: person.email });
-    await sql(`UPDATE password_resets SET expires_at = now() - interval '1 second' WHERE person_id = $1 RETURNING id`, [person.id]);
+    await sql(`UPDATE password_resets SET expires_at = now() - interval '1 second' WHERE person_id = $1 RETURNING id`, [
+      person.id,
+    ]);
     await deliverDueEmails();
     const [message] = await waitForMails(person.email);
     const token = tokenIn(message!, "/reset-password/");
     const expired = await client.post(`/api/auth/password-reset/${token}`).send({ password: "a-brand-new-passphrase" });
     expect(expired.status).toBe(410);
     expect(expired.body.error.message).toMatch(/expired/);
-    const unknown = await client.post(`/api/auth/password-reset/${"A".repeat(43)}`).send({ password: "a-brand-new-passphrase" });
+    const unknown = await client
+      .post(`/api/auth/password-reset/${"A".repeat(43)}`)
+      .send({ password: "a-brand-new-passphrase" });
     expect(unknown.status).toBe(404);
     const malformed = await client.post(`/api/auth/password-reset/short`).send({ password: "a-brand-new-passphrase" });
     expect(malformed.status).toBe(400);
@@ -497,7 +558,8 @@ describe("password reset", () => {
   it("when someone asks again and again, then at most three reset e-mails per hour are queued", async () => {
     const person = await createPerson();
     const client = await anonymousClient(app);
-    for (let i = 0; i < 5; i++) expect((await client.post("/api/auth/password-reset").send({ email: person.email })).status).toBe(202);
+    for (let i = 0; i < 5; i++)
+      expect((await client.post("/api/auth/password-reset").send({ email: person.email })).status).toBe(202);
     expect(await sql(`SELECT 1 FROM outbox_emails WHERE to_address = $1`, [person.email])).toHaveLength(3);
   });
 });
@@ -517,9 +579,13 @@ describe("object-level guards for services", () => {
     const steward = caller(["steward"], { stewardOf: [3] });
     expect(() => assertStewardOf(steward, 3)).not.toThrow();
     expect(() => assertStewardOf(steward, 4)).toThrow(expect.objectContaining({ status: 403 }));
-    expect(() => assertStewardOf(caller(["resident"], { stewardOf: [3] }), 3)).toThrow(expect.objectContaining({ status: 403 }));
+    expect(() => assertStewardOf(caller(["resident"], { stewardOf: [3] }), 3)).toThrow(
+      expect.objectContaining({ status: 403 }),
+    );
     expect(canManageDigester(caller(["coordinator"]), 4)).toBe(true);
-    expect(() => assertStewardOf(caller(["coordinator"]), 4, { coordinatorToo: false })).toThrow(expect.objectContaining({ status: 403 }));
+    expect(() => assertStewardOf(caller(["coordinator"]), 4, { coordinatorToo: false })).toThrow(
+      expect.objectContaining({ status: 403 }),
+    );
     expect(() => assertStewardOf(undefined, 3)).toThrow(expect.objectContaining({ status: 401 }));
   });
 
@@ -540,9 +606,14 @@ describe("housekeeping", () => {
     const agent = request.agent(app);
     const live = sessionIdFromCookies((await login(agent, person.email, TEST_PASSWORD)).headers["set-cookie"]);
     const deadSid = `dead-${uniqueEmail("sid")}`;
-    await sql(`INSERT INTO sessions (sid, sess, expire) VALUES ($1, '{}', now() - interval '1 minute') RETURNING sid`, [deadSid]);
+    await sql(`INSERT INTO sessions (sid, sess, expire) VALUES ($1, '{}', now() - interval '1 minute') RETURNING sid`, [
+      deadSid,
+    ]);
     const deadKey = `test:${uniqueEmail("key")}`;
-    await sql(`INSERT INTO rate_limit_hits (key, hits, reset_at) VALUES ($1, 3, now() - interval '1 minute') RETURNING key`, [deadKey]);
+    await sql(
+      `INSERT INTO rate_limit_hits (key, hits, reset_at) VALUES ($1, 3, now() - interval '1 minute') RETURNING key`,
+      [deadKey],
+    );
     const result = await pruneExpired();
     expect(result.skipped).toBe(false);
     expect(result.sessions).toBeGreaterThanOrEqual(1);

@@ -54,13 +54,11 @@ describe("CSV exports", () => {
   it("when a steward exports readings, then notes starting like formulas are neutralised and the file downloads as CSV", async () => {
     const { digester } = await warmDigester({ temperatureC: null, ph: null });
     const steward = await signedInClient(app, { roles: ["steward"], stewardOf: [digester.id] });
-    await steward
-      .post(`/api/digesters/${digester.id}/readings`)
-      .send({
-        takenAt: new Date(Date.now() - 60_000).toISOString(),
-        temperatureC: -2.5,
-        note: '=HYPERLINK("http://x.invalid")',
-      });
+    await steward.post(`/api/digesters/${digester.id}/readings`).send({
+      takenAt: new Date(Date.now() - 60_000).toISOString(),
+      temperatureC: -2.5,
+      note: '=HYPERLINK("http://x.invalid")',
+    });
     const res = await steward.get(`/api/digesters/${digester.id}/readings.csv`);
     expect(res.status).toBe(200);
     expect(res.headers["content-type"]).toBe("text/csv; charset=utf-8");

@@ -18,7 +18,12 @@ async function reading(digesterId: number, takenAt: Date, values: { temperatureC
 }
 
 async function fed(digesterId: number, day: string, kgVs: number) {
-  await sql(`INSERT INTO feedings (digester_id, fed_on, fresh_kg, kg_vs) VALUES ($1, $2, $3, $4)`, [digesterId, day, kgVs / 0.2262, kgVs]);
+  await sql(`INSERT INTO feedings (digester_id, fed_on, fresh_kg, kg_vs) VALUES ($1, $2, $3, $4)`, [
+    digesterId,
+    day,
+    kgVs / 0.2262,
+    kgVs,
+  ]);
 }
 
 /** A 2 m³ established digester at 35 °C, pH 7.0, fed 2.0 kg VS on each of the last 7 days. */
@@ -77,7 +82,12 @@ describe("today's feed budget from the database", () => {
     const res = await client.get("/api/digesters");
     expect(res.status).toBe(200);
     const mine = res.body.find((x: { id: number }) => x.id === d.id);
-    expect(mine).toMatchObject({ id: d.id, status: "active", location: { lat: 51.5, lng: -0.1 }, today: { binding: "weekRamp" } });
+    expect(mine).toMatchObject({
+      id: d.id,
+      status: "active",
+      location: { lat: 51.5, lng: -0.1 },
+      today: { binding: "weekRamp" },
+    });
     // 2.4 kg VS of the default mix (0.2262 kg VS/kg [read: Zhang et al. 2007 via DOMAIN.md §1]) ≈ 10.6 kg.
     expect(mine.today.budgetKgScraps).toBeCloseTo(2.4 / 0.2262, 0);
   });

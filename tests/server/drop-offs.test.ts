@@ -409,7 +409,7 @@ describe("random input from a resident", () => {
     "when a resident with a household sends random drop-off and household bodies, then no answer is a 5xx",
     { timeout: 120_000 },
     async () => {
-        const spot = remoteSpot();
+      const spot = remoteSpot();
       const d = await steadyDigester(spot);
       const { client } = await residentAt(spot);
       const num = fc.oneof(

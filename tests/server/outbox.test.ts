@@ -32,10 +32,16 @@ async function queue(to: string, subject = "Outbox test") {
 }
 
 async function row(id: number) {
-  const [r] = await sql<{ status: string; attempts: number; next_attempt_at: Date; last_error: string | null; message_id: string; sent_at: Date | null }>(
-    `SELECT status, attempts, next_attempt_at, last_error, message_id, sent_at FROM outbox_emails WHERE id = $1`,
-    [id],
-  );
+  const [r] = await sql<{
+    status: string;
+    attempts: number;
+    next_attempt_at: Date;
+    last_error: string | null;
+    message_id: string;
+    sent_at: Date | null;
+  }>(`SELECT status, attempts, next_attempt_at, last_error, message_id, sent_at FROM outbox_emails WHERE id = $1`, [
+    id,
+  ]);
   return r!;
 }
 
@@ -87,7 +93,9 @@ describe("writing to the outbox", () => {
     const to = uniqueEmail("dedupe");
     const key = `test:${to}`;
     await sequelize().transaction((t) => enqueueEmail(t, { to, subject: "Once", text: "once", dedupeKey: key }));
-    const second = await sequelize().transaction((t) => enqueueEmail(t, { to, subject: "Once", text: "once", dedupeKey: key }));
+    const second = await sequelize().transaction((t) =>
+      enqueueEmail(t, { to, subject: "Once", text: "once", dedupeKey: key }),
+    );
     expect(second).toBe(0);
     expect(await sql(`SELECT 1 FROM outbox_emails WHERE to_address = $1`, [to])).toHaveLength(1);
   });
@@ -112,7 +120,10 @@ describe("deliverDueEmails()", () => {
     const id = await queue(to);
     await deliverDueEmails();
     // Undo the mark, as if the process had died between sendMail() and markSent().
-    await sql(`UPDATE outbox_emails SET status = 'pending', sent_at = NULL, next_attempt_at = now() WHERE id = $1 RETURNING id`, [id]);
+    await sql(
+      `UPDATE outbox_emails SET status = 'pending', sent_at = NULL, next_attempt_at = now() WHERE id = $1 RETURNING id`,
+      [id],
+    );
     await deliverDueEmails();
     const mails = await waitForMails(to, 2);
     const ids = mails.map((m) => m.messageId ?? m.headers["message-id"]);
@@ -141,7 +152,13 @@ describe("deliverDueEmails()", () => {
     await new Promise<void>((r) => closed.listen(0, "127.0.0.1", r));
     const port = (closed.address() as net.AddressInfo).port;
     await new Promise<void>((r) => closed.close(() => r()));
-    const broken = nodemailer.createTransport({ host: "127.0.0.1", port, secure: false, ignoreTLS: true, connectionTimeout: 1_000 });
+    const broken = nodemailer.createTransport({
+      host: "127.0.0.1",
+      port,
+      secure: false,
+      ignoreTLS: true,
+      connectionTimeout: 1_000,
+    });
     const now = new Date();
     const result = await deliverDueEmails({ now, transport: broken });
     expect(result.retried).toBe(1);
@@ -185,7 +202,9 @@ describe("deliverDueEmails()", () => {
     const coordinator = await signedInClient(createApp({ requestLogging: false }), { roles: ["coordinator"] });
     const list = await coordinator.get("/api/outbox-emails");
     expect(list.status).toBe(200);
-    expect(list.body).toContainEqual(expect.objectContaining({ id: permanentId, toAddress: permanentTo, status: "failed" }));
+    expect(list.body).toContainEqual(
+      expect.objectContaining({ id: permanentId, toAddress: permanentTo, status: "failed" }),
+    );
     // Deliver the parked transient row so later tests start clean.
     await deliverDueEmails({ now: new Date(Date.now() + retryDelayMs(1) + 1_000) });
   });
@@ -224,7 +243,9 @@ describe("deliverDueEmails()", () => {
 
 describe("retry policy", () => {
   it("when attempts grow, then the delay doubles from 30 s and stops at 1 h", () => {
-    expect([1, 2, 3, 4, 8, 9, 20].map(retryDelayMs)).toEqual([30_000, 60_000, 120_000, 240_000, 3_600_000, 3_600_000, 3_600_000]);
+    expect([1, 2, 3, 4, 8, 9, 20].map(retryDelayMs)).toEqual([
+      30_000, 60_000, 120_000, 240_000, 3_600_000, 3_600_000, 3_600_000,
+    ]);
   });
 
   it("when an error has a 5xx reply or a bad envelope, then it is permanent; 4xx and connection errors are not", () => {

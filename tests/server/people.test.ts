@@ -28,7 +28,9 @@ afterAll(async () => {
 
 async function invite(email: string, roles = ["resident"], extra: Record<string, unknown> = {}) {
   const coordinator = await signedInClient(app, { roles: ["coordinator"] });
-  const res = await coordinator.post("/api/people/invitations").send({ email, name: "Invited Person", roles, ...extra });
+  const res = await coordinator
+    .post("/api/people/invitations")
+    .send({ email, name: "Invited Person", roles, ...extra });
   return { coordinator, res };
 }
 
@@ -52,13 +54,16 @@ describe("GET /api/people", () => {
     expect(JSON.stringify(res.body)).not.toMatch(/argon2|password/i);
   });
 
-  it.each(["resident", "steward", "gardener"] as const)("when a %s asks, then it is 403 and no addresses leak", async (role) => {
-    const other = await createPerson();
-    const client = await signedInClient(app, { roles: [role] });
-    const res = await client.get("/api/people");
-    expect(res.status).toBe(403);
-    expect(JSON.stringify(res.body)).not.toContain(other.email);
-  });
+  it.each(["resident", "steward", "gardener"] as const)(
+    "when a %s asks, then it is 403 and no addresses leak",
+    async (role) => {
+      const other = await createPerson();
+      const client = await signedInClient(app, { roles: [role] });
+      const res = await client.get("/api/people");
+      expect(res.status).toBe(403);
+      expect(JSON.stringify(res.body)).not.toContain(other.email);
+    },
+  );
 });
 
 describe("invitations", () => {
@@ -76,7 +81,12 @@ describe("invitations", () => {
       `SELECT status, roles, password_hash, household_id FROM people WHERE id = $1`,
       [res.body.personId],
     );
-    expect(person).toEqual({ status: "invited", roles: ["resident", "gardener"], password_hash: null, household_id: household.id });
+    expect(person).toEqual({
+      status: "invited",
+      roles: ["resident", "gardener"],
+      password_hash: null,
+      household_id: household.id,
+    });
     expect(await sql(`SELECT 1 FROM outbox_emails WHERE to_address = $1`, [email])).toHaveLength(1);
 
     await deliverDueEmails();
@@ -92,19 +102,34 @@ describe("invitations", () => {
     expect(info.status).toBe(200);
     expect(info.body).toMatchObject({ email, name: "Invited Person", roles: ["resident", "gardener"] });
 
-    const common = await visitor.post(`/api/invitations/${token}/accept`).send({ name: "Iris Invited", password: "iloveyou" });
+    const common = await visitor
+      .post(`/api/invitations/${token}/accept`)
+      .send({ name: "Iris Invited", password: "iloveyou" });
     expect(common.status).toBe(400);
     expect(common.body.error.fields.password).toMatch(/common/);
-    const short = await visitor.post(`/api/invitations/${token}/accept`).send({ name: "Iris Invited", password: "short" });
+    const short = await visitor
+      .post(`/api/invitations/${token}/accept`)
+      .send({ name: "Iris Invited", password: "short" });
     expect(short.status).toBe(400);
 
-    const accepted = await visitor.post(`/api/invitations/${token}/accept`).send({ name: "Iris Invited", password: "my own long passphrase" });
+    const accepted = await visitor
+      .post(`/api/invitations/${token}/accept`)
+      .send({ name: "Iris Invited", password: "my own long passphrase" });
     expect(accepted.status).toBe(200);
-    expect(accepted.body).toMatchObject({ id: res.body.personId, email, name: "Iris Invited", roles: ["resident", "gardener"] });
+    expect(accepted.body).toMatchObject({
+      id: res.body.personId,
+      email,
+      name: "Iris Invited",
+      roles: ["resident", "gardener"],
+    });
     // Accepting signs them in on the spot.
     expect((await visitor.get("/api/auth/me")).body.id).toBe(res.body.personId);
 
-    const reused = await (await anonymousClient(app)).post(`/api/invitations/${token}/accept`).send({ name: "X", password: "another long passphrase" });
+    const reused = await (
+      await anonymousClient(app)
+    )
+      .post(`/api/invitations/${token}/accept`)
+      .send({ name: "X", password: "another long passphrase" });
     expect(reused.status).toBe(410);
     expect((await request(app).get(`/api/invitations/${token}`)).status).toBe(410);
   });
@@ -112,11 +137,15 @@ describe("invitations", () => {
   it("when an invitation is over 7 days old, then it is refused with a clear message and nothing changes", async () => {
     const email = uniqueEmail("late");
     const { res } = await invite(email);
-    await sql(`UPDATE invitations SET expires_at = now() - interval '1 second' WHERE person_id = $1 RETURNING id`, [res.body.personId]);
+    await sql(`UPDATE invitations SET expires_at = now() - interval '1 second' WHERE person_id = $1 RETURNING id`, [
+      res.body.personId,
+    ]);
     await deliverDueEmails();
     const token = tokenIn((await waitForMails(email))[0]!, "/invitation/");
     const visitor = await anonymousClient(app);
-    const accept = await visitor.post(`/api/invitations/${token}/accept`).send({ name: "Late Person", password: "my own long passphrase" });
+    const accept = await visitor
+      .post(`/api/invitations/${token}/accept`)
+      .send({ name: "Late Person", password: "my own long passphrase" });
     expect(accept.status).toBe(410);
     expect(accept.body.error.message).toMatch(/expired/);
     const [person] = await sql<{ status: string }>(`SELECT status FROM people WHERE id = $1`, [res.body.personId]);
@@ -185,7 +214,9 @@ describe("PATCH /api/people/:id", () => {
     const res = await coordinator.patch(`/api/people/${person.id}`).send({ status: "disabled" });
     expect(res.status).toBe(200);
     expect(res.body.status).toBe("disabled");
-    expect(await sql(`SELECT 1 FROM sessions WHERE (sess -> 'passport' ->> 'user') = $1`, [String(person.id)])).toHaveLength(0);
+    expect(
+      await sql(`SELECT 1 FROM sessions WHERE (sess -> 'passport' ->> 'user') = $1`, [String(person.id)]),
+    ).toHaveLength(0);
     expect((await theirs.get("/api/auth/me")).status).toBe(401);
     expect((await theirOther.get("/api/auth/me")).status).toBe(401);
     await expect(clientFor(app, person)).rejects.toThrow(/401/);
@@ -207,19 +238,29 @@ describe("PATCH /api/people/:id", () => {
   it("when volunteer fields are set, then they are stored", async () => {
     const person = await createPerson();
     const coordinator = await signedInClient(app, { roles: ["coordinator"] });
-    const res = await coordinator.patch(`/api/people/${person.id}`).send({ isVolunteer: true, bikeLoadKg: 40, startLat: 51.51, startLng: -0.12 });
+    const res = await coordinator
+      .patch(`/api/people/${person.id}`)
+      .send({ isVolunteer: true, bikeLoadKg: 40, startLat: 51.51, startLng: -0.12 });
     expect(res.status).toBe(200);
     const [row] = await sql<{ is_volunteer: boolean; bike_load_kg: number; start_lat: number }>(
       `SELECT is_volunteer, bike_load_kg, start_lat FROM people WHERE id = $1`,
       [person.id],
     );
-    expect({ ...row, bike_load_kg: Number(row!.bike_load_kg) }).toEqual({ is_volunteer: true, bike_load_kg: 40, start_lat: 51.51 });
+    expect({ ...row, bike_load_kg: Number(row!.bike_load_kg) }).toEqual({
+      is_volunteer: true,
+      bike_load_kg: 40,
+      start_lat: 51.51,
+    });
   });
 
   it("when a coordinator tries to disable themselves or drop their own coordinator role, then it is 400", async () => {
     const coordinator = await signedInClient(app, { roles: ["coordinator"] });
-    expect((await coordinator.patch(`/api/people/${coordinator.person.id}`).send({ status: "disabled" })).status).toBe(400);
-    expect((await coordinator.patch(`/api/people/${coordinator.person.id}`).send({ roles: ["resident"] })).status).toBe(400);
+    expect((await coordinator.patch(`/api/people/${coordinator.person.id}`).send({ status: "disabled" })).status).toBe(
+      400,
+    );
+    expect((await coordinator.patch(`/api/people/${coordinator.person.id}`).send({ roles: ["resident"] })).status).toBe(
+      400,
+    );
   });
 
   it("when an invited person is set active, then it is 409: only accepting the invitation activates them", async () => {
@@ -253,7 +294,9 @@ describe("PUT /api/digesters/:id/stewards", () => {
     expect(res.body.stewards.map((s: { id: number }) => s.id).sort()).toEqual([a.id, b.id].sort());
     // Only ids and names: a steward list never carries e-mail addresses.
     expect(Object.keys(res.body.stewards[0]).sort()).toEqual(["id", "name"]);
-    const rows = await sql<{ person_id: number }>(`SELECT person_id FROM digester_stewards WHERE digester_id = $1`, [digester.id]);
+    const rows = await sql<{ person_id: number }>(`SELECT person_id FROM digester_stewards WHERE digester_id = $1`, [
+      digester.id,
+    ]);
     expect(rows.map((r) => r.person_id).sort()).toEqual([a.id, b.id].sort());
     expect((await (await clientFor(app, a)).get("/api/auth/me")).body.stewardOf).toEqual([digester.id]);
     expect((await (await clientFor(app, old)).get("/api/auth/me")).body.stewardOf).toEqual([]);
@@ -267,7 +310,9 @@ describe("PUT /api/digesters/:id/stewards", () => {
     const res = await coordinator.put(`/api/digesters/${digester.id}/stewards`).send({ personIds: [resident.id] });
     expect(res.status).toBe(400);
     expect(res.body.error.fields.personIds).toContain("steward role");
-    const rows = await sql<{ person_id: number }>(`SELECT person_id FROM digester_stewards WHERE digester_id = $1`, [digester.id]);
+    const rows = await sql<{ person_id: number }>(`SELECT person_id FROM digester_stewards WHERE digester_id = $1`, [
+      digester.id,
+    ]);
     expect(rows).toEqual([{ person_id: steward.id }]);
   });
 
@@ -279,7 +324,9 @@ describe("PUT /api/digesters/:id/stewards", () => {
   it("when a steward tries to assign stewards, even to their own digester, then it is 403", async () => {
     const digester = await createDigester();
     const steward = await signedInClient(app, { roles: ["steward"], stewardOf: [digester.id] });
-    expect((await steward.put(`/api/digesters/${digester.id}/stewards`).send({ personIds: [steward.person.id] })).status).toBe(403);
+    expect(
+      (await steward.put(`/api/digesters/${digester.id}/stewards`).send({ personIds: [steward.person.id] })).status,
+    ).toBe(403);
   });
 });
 
@@ -290,7 +337,9 @@ describe("the demo-style sign-in of a freshly accepted invitation", () => {
     await deliverDueEmails();
     const token = tokenIn((await waitForMails(email))[0]!, "/invitation/");
     const visitor = await anonymousClient(app);
-    expect((await visitor.post(`/api/invitations/${token}/accept`).send({ name: "Later", password: TEST_PASSWORD })).status).toBe(200);
+    expect(
+      (await visitor.post(`/api/invitations/${token}/accept`).send({ name: "Later", password: TEST_PASSWORD })).status,
+    ).toBe(200);
     const again = await anonymousClient(app);
     const res = await again.post("/api/auth/login").send({ email, password: TEST_PASSWORD });
     expect(res.status).toBe(200);

@@ -11,7 +11,10 @@ function remoteSpot() {
 
 async function warmDigester(at: { lat: number; lng: number }) {
   const d = await createDigester({ ...at, workingVolumeM3: 2 });
-  await sql(`INSERT INTO readings (digester_id, taken_at, temperature_c, ph) VALUES ($1, now() - interval '1 hour', 30, 7.1)`, [d.id]);
+  await sql(
+    `INSERT INTO readings (digester_id, taken_at, temperature_c, ph) VALUES ($1, now() - interval '1 hour', 30, 7.1)`,
+    [d.id],
+  );
   return d;
 }
 
@@ -70,7 +73,9 @@ describe("rebalancing today", () => {
     expect(res.body).toEqual({ moved: 1, emailsQueued: 1 });
     const [row] = await sql<{ digester_id: number }>(`SELECT digester_id FROM drop_offs WHERE id = $1`, [dropOffId]);
     expect(row!.digester_id).toBe(near.id);
-    const mail = await sql<{ subject: string }>(`SELECT subject FROM outbox_emails WHERE to_address = $1`, [resident.email]);
+    const mail = await sql<{ subject: string }>(`SELECT subject FROM outbox_emails WHERE to_address = $1`, [
+      resident.email,
+    ]);
     expect(mail.map((m) => m.subject)).toEqual([expect.stringContaining(near.name)]);
 
     // Moving it where it already is counts as no move and writes no e-mail.
@@ -78,11 +83,15 @@ describe("rebalancing today", () => {
     expect(same.body).toEqual({ moved: 0, emailsQueued: 0 });
 
     await sql(`UPDATE drop_offs SET status = 'cancelled' WHERE id = $1`, [dropOffId]);
-    const again = await coordinator.post("/api/rebalancing/moves").send({ moves: [{ dropOffId, digesterId: near.id }] });
+    const again = await coordinator
+      .post("/api/rebalancing/moves")
+      .send({ moves: [{ dropOffId, digesterId: near.id }] });
     expect(again.status).toBe(409);
     expect(again.body.error.fields).toEqual({ "moves.0.dropOffId": expect.any(String) });
 
-    const missing = await coordinator.post("/api/rebalancing/moves").send({ moves: [{ dropOffId: 2_000_000_000, digesterId: near.id }] });
+    const missing = await coordinator
+      .post("/api/rebalancing/moves")
+      .send({ moves: [{ dropOffId: 2_000_000_000, digesterId: near.id }] });
     expect(missing.status).toBe(404);
     expect(missing.body.error.fields).toEqual({ "moves.0.dropOffId": expect.any(String) });
   });
@@ -100,7 +109,9 @@ describe("rebalancing today", () => {
     });
     expect(res.status).toBe(409);
     expect(res.body.error.fields).toEqual({ "moves.1.digesterId": expect.any(String) });
-    const rows = await sql<{ digester_id: number }>(`SELECT digester_id FROM drop_offs WHERE id = ANY($1::int[])`, [[dropOffId, second]]);
+    const rows = await sql<{ digester_id: number }>(`SELECT digester_id FROM drop_offs WHERE id = ANY($1::int[])`, [
+      [dropOffId, second],
+    ]);
     expect(rows.every((r) => r.digester_id === offline.id)).toBe(true);
   });
 
@@ -120,7 +131,9 @@ describe("rebalancing today", () => {
     const second = await pendingDropOff(household.id, offline.id, 2);
 
     const res = await coordinator.get("/api/rebalancing");
-    const items = [dropOffId, second].map((id) => res.body.items.find((i: { dropOffId: number }) => i.dropOffId === id));
+    const items = [dropOffId, second].map((id) =>
+      res.body.items.find((i: { dropOffId: number }) => i.dropOffId === id),
+    );
     expect(items.map((i) => i.suggestions[0].digesterId)).toEqual([near.id, far.id]);
     // `near` is still offered to the second one only if it has room after the first: it has not.
     expect(items[1].suggestions.map((s: { digesterId: number }) => s.digesterId)).not.toContain(near.id);
@@ -129,9 +142,10 @@ describe("rebalancing today", () => {
     const moved = await coordinator.post("/api/rebalancing/moves").send({ moves });
     expect(moved.status).toBe(200);
     expect(moved.body).toEqual({ moved: 2, emailsQueued: 2 });
-    const rows = await sql<{ id: number; digester_id: number }>(`SELECT id, digester_id FROM drop_offs WHERE id = ANY($1::int[]) ORDER BY id`, [
-      [dropOffId, second],
-    ]);
+    const rows = await sql<{ id: number; digester_id: number }>(
+      `SELECT id, digester_id FROM drop_offs WHERE id = ANY($1::int[]) ORDER BY id`,
+      [[dropOffId, second]],
+    );
     expect(rows.map((r) => r.digester_id)).toEqual([near.id, far.id]);
   });
 
@@ -148,7 +162,11 @@ describe("rebalancing today", () => {
       `INSERT INTO collection_rounds (for_date, volunteer_id, end_digester_id, total_m, load_kg, status) VALUES ($1, $2, $3, 500, 3, 'done') RETURNING id`,
       [localDate(new Date()), volunteer.id, offline.id],
     );
-    await sql(`INSERT INTO collection_round_stops (round_id, request_id, seq, drop_off_id) VALUES ($1, $2, 1, $3)`, [round!.id, request!.id, collected]);
+    await sql(`INSERT INTO collection_round_stops (round_id, request_id, seq, drop_off_id) VALUES ($1, $2, 1, $3)`, [
+      round!.id,
+      request!.id,
+      collected,
+    ]);
 
     const coordinator = await signedInClient(app, { roles: ["coordinator"] });
     const res = await coordinator.get("/api/rebalancing");
@@ -167,7 +185,9 @@ describe("rebalancing today", () => {
     expect(move.status).toBe(409);
     expect(move.body.error.message).toMatch(/collected on a collection round/);
     expect(move.body.error.fields).toEqual({ "moves.1.dropOffId": expect.any(String) });
-    const rows = await sql<{ digester_id: number }>(`SELECT digester_id FROM drop_offs WHERE id = ANY($1::int[])`, [[dropOffId, collected]]);
+    const rows = await sql<{ digester_id: number }>(`SELECT digester_id FROM drop_offs WHERE id = ANY($1::int[])`, [
+      [dropOffId, collected],
+    ]);
     expect(rows.map((r) => r.digester_id)).toEqual([offline.id, offline.id]);
     expect(await sql(`SELECT 1 FROM outbox_emails WHERE to_address = $1`, [resident.email])).toEqual([]);
   });

@@ -17,14 +17,24 @@ afterEach(async () => {
 });
 
 function listen(server: net.Server, port = 0): Promise<number> {
-  return new Promise((resolve) => server.listen(port, "127.0.0.1", () => resolve((server.address() as net.AddressInfo).port)));
+  return new Promise((resolve) =>
+    server.listen(port, "127.0.0.1", () => resolve((server.address() as net.AddressInfo).port)),
+  );
 }
 
 /** Starts server/index.ts as a child; resolves with its port once it listens. */
 async function startServer(env: Record<string, string>): Promise<{ child: ChildProcess; port: number }> {
   const child = fork(path.resolve("server/index.ts"), [], {
     execArgv: ["--import", "tsx"],
-    env: { ...process.env, PORT: "0", HOST: "127.0.0.1", JOBS_ENABLED: "false", LOG_LEVEL: "silent", CLIENT_DIST: "no-client", ...env },
+    env: {
+      ...process.env,
+      PORT: "0",
+      HOST: "127.0.0.1",
+      JOBS_ENABLED: "false",
+      LOG_LEVEL: "silent",
+      CLIENT_DIST: "no-client",
+      ...env,
+    },
     stdio: ["ignore", "ignore", "inherit", "ipc"],
   });
   children.push(child);

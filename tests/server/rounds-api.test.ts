@@ -12,7 +12,15 @@ const app = createApp({ requestLogging: false });
 const scene = (forDate?: string) => roundsScene(app, forDate);
 const today = () => localDate(new Date());
 
-type Round = { id: number; volunteerId: number; endDigesterId: number; stopCount: number; loadKg: number; status: string; collectedCount: number };
+type Round = {
+  id: number;
+  volunteerId: number;
+  endDigesterId: number;
+  stopCount: number;
+  loadKg: number;
+  status: string;
+  collectedCount: number;
+};
 type Unplaced = { requestId: number; householdName: string; reason: string; message: string };
 
 /** The stops of these rounds, by round and seq (from the database). */
@@ -63,7 +71,8 @@ describe("collection rounds", () => {
   it("plans a round, gives the sheet and valid GeoJSON, and a collected stop becomes a pending drop-off", async () => {
     // Today: a stop is collected on its round's day.
     const { forDate, digester, residents, volunteer, coordinator, spot } = await scene(today());
-    for (const r of residents) expect((await r.client.post("/api/collection-requests").send({ forDate, bucketCount: 2 })).status).toBe(201);
+    for (const r of residents)
+      expect((await r.client.post("/api/collection-requests").send({ forDate, bucketCount: 2 })).status).toBe(201);
 
     const plan = await coordinator.post("/api/collection-rounds/plan").send({ forDate });
     expect(plan.status).toBe(200);
@@ -73,7 +82,11 @@ describe("collection rounds", () => {
     const sheet = await volunteer.get(`/api/collection-rounds/${round.id}`);
     expect(sheet.status).toBe(200);
     // Start at the spot, households 111 m apart going north, digester at 0.005°: the short order is 1, 2, 3.
-    expect(sheet.body.stops.map((s: { addressText: string }) => s.addressText)).toEqual(["1 Sorrel Lane", "2 Sorrel Lane", "3 Sorrel Lane"]);
+    expect(sheet.body.stops.map((s: { addressText: string }) => s.addressText)).toEqual([
+      "1 Sorrel Lane",
+      "2 Sorrel Lane",
+      "3 Sorrel Lane",
+    ]);
     expect(sheet.body.stops.map((s: { bucketCount: number }) => s.bucketCount)).toEqual([2, 2, 2]);
     const stranger = await signedInClient(app, { roles: ["resident"] });
     expect((await stranger.get(`/api/collection-rounds/${round.id}`)).status).toBe(403);
@@ -108,26 +121,47 @@ describe("collection rounds", () => {
     // The steward's bucket density (1 kg/L) is for weighing on acceptance; the ledger records what the plan reserved.
     await sql(`UPDATE digesters SET bucket_kg_per_litre = 1.0 WHERE id = $1`, [digester.id]);
     const first = sheet.body.stops[0];
-    const collected = await volunteer.post(`/api/collection-rounds/${round.id}/stops/${first.requestId}/collected`).send({});
+    const collected = await volunteer
+      .post(`/api/collection-rounds/${round.id}/stops/${first.requestId}/collected`)
+      .send({});
     expect(collected.status).toBe(200);
     const stop = collected.body.stops[0];
     expect(stop).toMatchObject({ status: "collected" });
-    const [dropOff] = await sql<{ digester_id: number; household_id: number; status: string; bucket_count: number; fresh_kg: number; for_date: string }>(
+    const [dropOff] = await sql<{
+      digester_id: number;
+      household_id: number;
+      status: string;
+      bucket_count: number;
+      fresh_kg: number;
+      for_date: string;
+    }>(
       `SELECT digester_id, household_id, status, bucket_count, fresh_kg::float8 AS fresh_kg, for_date::text AS for_date FROM drop_offs WHERE id = $1`,
       [stop.dropOffId],
     );
     // 2 buckets × 5 kg (COLLECTION_BUCKET_KG), as planned, not 2 × 10 L × 1 kg/L.
-    expect(dropOff).toEqual({ digester_id: digester.id, household_id: first.householdId, status: "pending", bucket_count: 2, fresh_kg: 10, for_date: forDate });
-    const again = await volunteer.post(`/api/collection-rounds/${round.id}/stops/${first.requestId}/collected`).send({});
+    expect(dropOff).toEqual({
+      digester_id: digester.id,
+      household_id: first.householdId,
+      status: "pending",
+      bucket_count: 2,
+      fresh_kg: 10,
+      for_date: forDate,
+    });
+    const again = await volunteer
+      .post(`/api/collection-rounds/${round.id}/stops/${first.requestId}/collected`)
+      .send({});
     expect(again.status).toBe(409);
-    const [{ count }] = (await sql<{ count: string }>(`SELECT count(*) FROM drop_offs WHERE household_id = $1`, [first.householdId])) as [{ count: string }];
+    const [{ count }] = (await sql<{ count: string }>(`SELECT count(*) FROM drop_offs WHERE household_id = $1`, [
+      first.householdId,
+    ])) as [{ count: string }];
     expect(Number(count)).toBe(1);
   });
 
   it("a cancelled stop leaves its round lighter and shorter; a round left with nothing to collect is cancelled", async () => {
     const { forDate, residents, coordinator, volunteer } = await scene();
     const ids: number[] = [];
-    for (const r of residents) ids.push((await r.client.post("/api/collection-requests").send({ forDate, bucketCount: 2 })).body.id);
+    for (const r of residents)
+      ids.push((await r.client.post("/api/collection-requests").send({ forDate, bucketCount: 2 })).body.id);
     const plan = await coordinator.post("/api/collection-rounds/plan").send({ forDate });
     const round = plan.body.rounds.find((x: { volunteerId: number }) => x.volunteerId === volunteer.person.id);
     expect(round).toMatchObject({ stopCount: 3, loadKg: 30 });
@@ -153,13 +187,18 @@ describe("collection rounds", () => {
     const { forDate, residents, coordinator, volunteer } = await scene();
     const requestIds: number[] = [];
     // The heavy one: 20 buckets × 5 kg = 100 kg, more than the scene volunteer's 40 kg bike.
-    requestIds.push((await residents[0]!.client.post("/api/collection-requests").send({ forDate, bucketCount: 20 })).body.id);
-    for (const r of residents.slice(1)) requestIds.push((await r.client.post("/api/collection-requests").send({ forDate, bucketCount: 2 })).body.id);
+    requestIds.push(
+      (await residents[0]!.client.post("/api/collection-requests").send({ forDate, bucketCount: 20 })).body.id,
+    );
+    for (const r of residents.slice(1))
+      requestIds.push((await r.client.post("/api/collection-requests").send({ forDate, bucketCount: 2 })).body.id);
     const heavyId = requestIds[0]!;
     const plan = await coordinator.post("/api/collection-rounds/plan").send({ forDate });
     expect(plan.status).toBe(200);
     // The date's untouched rounds (other tests' rounds on this day may be cancelled or have something collected: those stay).
-    const oldIds = (plan.body.rounds as Round[]).filter((x) => x.status === "planned" && x.collectedCount === 0).map((x) => x.id);
+    const oldIds = (plan.body.rounds as Round[])
+      .filter((x) => x.status === "planned" && x.collectedCount === 0)
+      .map((x) => x.id);
     expect(oldIds.length).toBeGreaterThan(0);
 
     const again = await coordinator.post("/api/collection-rounds/plan").send({ forDate });
@@ -176,10 +215,12 @@ describe("collection rounds", () => {
       [requestIds],
     );
     const statuses = new Map(
-      (await sql<{ id: number; status: string }>(`SELECT id, status FROM collection_requests WHERE id = ANY($1::int[])`, [requestIds])).map((r) => [
-        r.id,
-        r.status,
-      ]),
+      (
+        await sql<{ id: number; status: string }>(
+          `SELECT id, status FROM collection_requests WHERE id = ANY($1::int[])`,
+          [requestIds],
+        )
+      ).map((r) => [r.id, r.status]),
     );
     for (const id of requestIds) {
       const on = stops.filter((s) => s.request_id === id);
@@ -198,7 +239,10 @@ describe("collection rounds", () => {
     if (heavyOn) {
       expect(mine).not.toContain(heavyOn.round_id);
       const round = rounds.find((x) => x.id === heavyOn.round_id)!;
-      const [bike] = await sql<{ bike_load_kg: number }>(`SELECT bike_load_kg::float8 AS bike_load_kg FROM people WHERE id = $1`, [round.volunteerId]);
+      const [bike] = await sql<{ bike_load_kg: number }>(
+        `SELECT bike_load_kg::float8 AS bike_load_kg FROM people WHERE id = $1`,
+        [round.volunteerId],
+      );
       expect(bike!.bike_load_kg).toBeGreaterThanOrEqual(100);
     } else {
       const u = unplaced.find((x) => x.requestId === heavyId)!;
@@ -215,7 +259,9 @@ describe("collection rounds", () => {
     const b = await scene(a.forDate);
     const requestIds: number[] = [];
     for (const [i, r] of [...a.residents, ...b.residents].entries()) {
-      const res = await r.client.post("/api/collection-requests").send({ forDate: a.forDate, bucketCount: 1 + (i % 3) });
+      const res = await r.client
+        .post("/api/collection-requests")
+        .send({ forDate: a.forDate, bucketCount: 1 + (i % 3) });
       expect(res.status).toBe(201);
       requestIds.push(res.body.id);
     }
@@ -226,12 +272,19 @@ describe("collection rounds", () => {
     // Each new round's stops are its own: seq 1…n, as many as it says, weighing what it says.
     for (const round of rounds) {
       const sheet = (await a.coordinator.get(`/api/collection-rounds/${round.id}`)).body;
-      expect(sheet.stops.map((x: { seq: number }) => x.seq)).toEqual(Array.from({ length: round.stopCount }, (_, i) => i + 1));
-      expect(round.loadKg).toBe(sheet.stops.reduce((sum: number, x: { bucketCount: number }) => sum + x.bucketCount * 5, 0));
+      expect(sheet.stops.map((x: { seq: number }) => x.seq)).toEqual(
+        Array.from({ length: round.stopCount }, (_, i) => i + 1),
+      );
+      expect(round.loadKg).toBe(
+        sheet.stops.reduce((sum: number, x: { bucketCount: number }) => sum + x.bucketCount * 5, 0),
+      );
       expect(sheet.stops.every((x: { status: string }) => x.status === "planned")).toBe(true);
     }
     // Each of our requests is on one round, or reported.
-    const on = await sql<{ request_id: number }>(`SELECT request_id FROM collection_round_stops WHERE request_id = ANY($1::int[])`, [requestIds]);
+    const on = await sql<{ request_id: number }>(
+      `SELECT request_id FROM collection_round_stops WHERE request_id = ANY($1::int[])`,
+      [requestIds],
+    );
     for (const id of requestIds) {
       const placed = on.filter((x) => x.request_id === id).length;
       const reported = (plan.body.unplaced as Unplaced[]).filter((u) => u.requestId === id).length;
@@ -242,7 +295,9 @@ describe("collection rounds", () => {
       const round = rounds.find((x) => x.volunteerId === s.volunteer.person.id)!;
       const sheet = (await s.volunteer.get(`/api/collection-rounds/${round.id}`)).body;
       const ours = s.residents.map((r) => r.household.id);
-      const order = sheet.stops.map((x: { householdId: number }) => x.householdId).filter((id: number) => ours.includes(id));
+      const order = sheet.stops
+        .map((x: { householdId: number }) => x.householdId)
+        .filter((id: number) => ours.includes(id));
       expect(order.length).toBeGreaterThan(0);
       expect(order).toEqual(ours.filter((id) => order.includes(id)));
     }
@@ -258,7 +313,8 @@ describe("collection rounds", () => {
       [residents[0]!.household.id, digester.id, forDate],
     );
     const ids: number[] = [];
-    for (const r of residents) ids.push((await r.client.post("/api/collection-requests").send({ forDate, bucketCount: 2 })).body.id);
+    for (const r of residents)
+      ids.push((await r.client.post("/api/collection-requests").send({ forDate, bucketCount: 2 })).body.id);
     const plan = await coordinator.post("/api/collection-rounds/plan").send({ forDate });
     expect(plan.status).toBe(200);
     expect((plan.body.rounds as Round[]).filter((x) => x.endDigesterId === digester.id)).toEqual([]);
@@ -269,7 +325,8 @@ describe("collection rounds", () => {
   it("a re-plan leaves room for the stops still to collect on rounds it keeps", async () => {
     const forDate = addDays(today(), 2);
     const { digester, residents, coordinator, volunteer, spot } = await scene(forDate);
-    for (const r of residents) expect((await r.client.post("/api/collection-requests").send({ forDate, bucketCount: 2 })).status).toBe(201);
+    for (const r of residents)
+      expect((await r.client.post("/api/collection-requests").send({ forDate, bucketCount: 2 })).status).toBe(201);
     const plan = await coordinator.post("/api/collection-rounds/plan").send({ forDate });
     const round = (plan.body.rounds as Round[]).find((x) => x.volunteerId === volunteer.person.id)!;
     expect(round).toMatchObject({ endDigesterId: digester.id, stopCount: 3, loadKg: 30 });
@@ -285,11 +342,10 @@ describe("collection rounds", () => {
        VALUES ($1, $2, $3, 2, 10, 'estimated', 10, 1.8, 'pending') RETURNING id`,
       [first!.household_id, digester.id, forDate],
     );
-    await sql(`UPDATE collection_round_stops SET drop_off_id = $1 WHERE round_id = $2 AND request_id = $3 RETURNING round_id`, [
-      dropOff!.id,
-      round.id,
-      first!.request_id,
-    ]);
+    await sql(
+      `UPDATE collection_round_stops SET drop_off_id = $1 WHERE round_id = $2 AND request_id = $3 RETURNING round_id`,
+      [dropOff!.id, round.id, first!.request_id],
+    );
     await sql(`UPDATE collection_requests SET status = 'collected' WHERE id = $1 RETURNING id`, [first!.request_id]);
 
     // Fill the day so that 5 kg is left once the collected 10 kg and the 20 kg still on the round are counted.
@@ -317,7 +373,8 @@ describe("collection rounds", () => {
 
   it("a re-plan waits for a stop being marked collected and keeps that round", async () => {
     const { forDate, residents, coordinator, volunteer, digester } = await scene();
-    for (const r of residents) expect((await r.client.post("/api/collection-requests").send({ forDate, bucketCount: 2 })).status).toBe(201);
+    for (const r of residents)
+      expect((await r.client.post("/api/collection-requests").send({ forDate, bucketCount: 2 })).status).toBe(201);
     const plan = await coordinator.post("/api/collection-rounds/plan").send({ forDate });
     const round = (plan.body.rounds as Round[]).find((x) => x.volunteerId === volunteer.person.id)!;
     const before = await stopsOf([round.id]);
@@ -342,14 +399,16 @@ describe("collection rounds", () => {
          VALUES ($1, $2, $3, 2, 10, 'estimated', 10, 1.8, 'pending') RETURNING id`,
         [first!.household_id, digester.id, forDate],
       )) as [{ id: number }];
-      await run(`UPDATE collection_round_stops SET drop_off_id = $1 WHERE round_id = $2 AND request_id = $3 RETURNING round_id`, [
-        dropOffId,
-        round.id,
-        first!.request_id,
-      ]);
+      await run(
+        `UPDATE collection_round_stops SET drop_off_id = $1 WHERE round_id = $2 AND request_id = $3 RETURNING round_id`,
+        [dropOffId, round.id, first!.request_id],
+      );
       await run(`UPDATE collection_requests SET status = 'collected' WHERE id = $1 RETURNING id`, [first!.request_id]);
 
-      replanning = coordinator.post("/api/collection-rounds/plan").send({ forDate }).then((res) => res);
+      replanning = coordinator
+        .post("/api/collection-rounds/plan")
+        .send({ forDate })
+        .then((res) => res);
       // Wait until the re-plan is blocked by the collection's locks.
       const deadline = Date.now() + 10_000;
       for (;;) {
@@ -367,7 +426,10 @@ describe("collection rounds", () => {
     const again = await replanning!;
     expect(again.status).toBe(200);
     // The round with a collected stop is kept whole: the collection is not lost, its other stops still ride with it.
-    expect(again.body.rounds.find((x) => x.id === round.id)).toMatchObject({ stopCount: before.length, collectedCount: 1 });
+    expect(again.body.rounds.find((x) => x.id === round.id)).toMatchObject({
+      stopCount: before.length,
+      collectedCount: 1,
+    });
     expect(await stopsOf([round.id])).toEqual(before);
     const statuses = await sql<{ status: string }>(
       `SELECT c.status FROM collection_round_stops s JOIN collection_requests c ON c.id = s.request_id WHERE s.round_id = $1 ORDER BY s.seq`,
@@ -379,19 +441,28 @@ describe("collection rounds", () => {
   it("a stop is collected only on its round's day, at a digester still open, by the round's volunteer", async () => {
     // A later day: not yet.
     const later = await scene();
-    for (const r of later.residents) await r.client.post("/api/collection-requests").send({ forDate: later.forDate, bucketCount: 2 });
+    for (const r of later.residents)
+      await r.client.post("/api/collection-requests").send({ forDate: later.forDate, bucketCount: 2 });
     const laterPlan = await later.coordinator.post("/api/collection-rounds/plan").send({ forDate: later.forDate });
     const laterRound = (laterPlan.body.rounds as Round[]).find((x) => x.volunteerId === later.volunteer.person.id)!;
     const laterSheet = (await later.volunteer.get(`/api/collection-rounds/${laterRound.id}`)).body;
-    const early = await later.volunteer.post(`/api/collection-rounds/${laterRound.id}/stops/${laterSheet.stops[0].requestId}/collected`).send({});
+    const early = await later.volunteer
+      .post(`/api/collection-rounds/${laterRound.id}/stops/${laterSheet.stops[0].requestId}/collected`)
+      .send({});
     expect(early.status).toBe(409);
     expect(early.body.error.code).toBe("not_yet");
     expect(early.body.error.message).toContain(later.forDate);
-    expect(await collectionTrace(later.residents.map((r) => r.household.id), laterRound.id)).toEqual({ drop_offs: 0, collected: 0, linked: 0 });
+    expect(
+      await collectionTrace(
+        later.residents.map((r) => r.household.id),
+        laterRound.id,
+      ),
+    ).toEqual({ drop_offs: 0, collected: 0, linked: 0 });
 
     // Today, but by another volunteer: forbidden, nothing written.
     const s = await scene(today());
-    for (const r of s.residents) await r.client.post("/api/collection-requests").send({ forDate: s.forDate, bucketCount: 2 });
+    for (const r of s.residents)
+      await r.client.post("/api/collection-requests").send({ forDate: s.forDate, bucketCount: 2 });
     const plan = await s.coordinator.post("/api/collection-rounds/plan").send({ forDate: s.forDate });
     const round = (plan.body.rounds as Round[]).find((x) => x.volunteerId === s.volunteer.person.id)!;
     const sheet = (await s.volunteer.get(`/api/collection-rounds/${round.id}`)).body;
@@ -403,14 +474,18 @@ describe("collection rounds", () => {
     expect(await collectionTrace(households, round.id)).toEqual({ drop_offs: 0, collected: 0, linked: 0 });
 
     // Today, the round's volunteer, but the end digester has since gone to rest: ask for a re-plan.
-    await sql(`UPDATE digesters SET status = 'resting', status_reason = 'test' WHERE id = $1 RETURNING id`, [s.digester.id]);
+    await sql(`UPDATE digesters SET status = 'resting', status_reason = 'test' WHERE id = $1 RETURNING id`, [
+      s.digester.id,
+    ]);
     const resting = await s.volunteer.post(stopPath).send({});
     expect(resting.status).toBe(409);
     expect(resting.body.error.message).toMatch(/re-plan/);
     expect(await collectionTrace(households, round.id)).toEqual({ drop_offs: 0, collected: 0, linked: 0 });
 
     // Open again: collected.
-    await sql(`UPDATE digesters SET status = 'active', status_reason = NULL WHERE id = $1 RETURNING id`, [s.digester.id]);
+    await sql(`UPDATE digesters SET status = 'active', status_reason = NULL WHERE id = $1 RETURNING id`, [
+      s.digester.id,
+    ]);
     expect((await s.volunteer.post(stopPath).send({})).status).toBe(200);
     expect(await collectionTrace(households, round.id)).toEqual({ drop_offs: 1, collected: 1, linked: 1 });
   });
@@ -418,12 +493,14 @@ describe("collection rounds", () => {
   it("GeoJSON leaves out the route when fewer than two positions are left", async () => {
     const { forDate, residents, coordinator, volunteer } = await scene();
     const ids: number[] = [];
-    for (const r of residents) ids.push((await r.client.post("/api/collection-requests").send({ forDate, bucketCount: 2 })).body.id);
+    for (const r of residents)
+      ids.push((await r.client.post("/api/collection-requests").send({ forDate, bucketCount: 2 })).body.id);
     const plan = await coordinator.post("/api/collection-rounds/plan").send({ forDate });
     const round = (plan.body.rounds as Round[]).find((x) => x.volunteerId === volunteer.person.id)!;
     // The volunteer's start point is removed and every household cancels: only the end digester is left.
     await sql(`UPDATE people SET start_lat = NULL, start_lng = NULL WHERE id = $1 RETURNING id`, [volunteer.person.id]);
-    for (const [i, r] of residents.entries()) expect((await r.client.post(`/api/collection-requests/${ids[i]}/cancel`).send({})).status).toBe(200);
+    for (const [i, r] of residents.entries())
+      expect((await r.client.post(`/api/collection-requests/${ids[i]}/cancel`).send({})).status).toBe(200);
     const geo = await coordinator.get(`/api/collection-rounds/${round.id}/geojson`);
     expect(geo.status).toBe(200);
     const fc = JSON.parse(geo.text);

@@ -44,7 +44,10 @@ describe("assignment solver on its worker thread", () => {
 
   it("when the worker does not answer in time, the request gets a 503 and the next one a fresh worker", async () => {
     const input = tightNetwork();
-    await expect(solveOffThread(input, { timeLimitS: 10 }, 1)).rejects.toMatchObject({ status: 503, code: "scheduler_timeout" });
+    await expect(solveOffThread(input, { timeLimitS: 10 }, 1)).rejects.toMatchObject({
+      status: 503,
+      code: "scheduler_timeout",
+    });
     const { result } = await solveOffThread(
       { households: input.households.slice(0, 5), digesters: input.digesters },
       { timeLimitS: 10 },

@@ -14,14 +14,26 @@ const limits = (over: Partial<Record<string, number | null>> = {}) => ({
 
 describe("projectWeeklyRoom", () => {
   it("is zero when closed or without a temperature", () => {
-    expect(projectWeeklyRoom({ limits: limits(), previous7DaysKgVs: null, fedTodayKgVs: 0, closed: true }).weeklyKgVs).toBe(0);
     expect(
-      projectWeeklyRoom({ limits: limits({ organicLoad: null }), previous7DaysKgVs: null, fedTodayKgVs: 0, closed: false }).weeklyKgVs,
+      projectWeeklyRoom({ limits: limits(), previous7DaysKgVs: null, fedTodayKgVs: 0, closed: true }).weeklyKgVs,
+    ).toBe(0);
+    expect(
+      projectWeeklyRoom({
+        limits: limits({ organicLoad: null }),
+        previous7DaysKgVs: null,
+        fedTodayKgVs: 0,
+        closed: false,
+      }).weeklyKgVs,
     ).toBe(0);
   });
 
   it("without history is 7 × the static cap minus today's feed", () => {
-    const r = projectWeeklyRoom({ limits: limits({ stability: 2.4 }), previous7DaysKgVs: null, fedTodayKgVs: 1, closed: false });
+    const r = projectWeeklyRoom({
+      limits: limits({ stability: 2.4 }),
+      previous7DaysKgVs: null,
+      fedTodayKgVs: 1,
+      closed: false,
+    });
     // Hand-computed: min(3, 10, 2.4) = 2.4 a day; 7 × 2.4 − 1 = 15.8.
     expect(r.weeklyKgVs).toBeCloseTo(15.8, 9);
   });
@@ -44,9 +56,20 @@ describe("projectWeeklyRoom", () => {
   });
 
   it("day 0 equals today's feed budget from the science core", () => {
-    const input = { workingVolumeM3: 2, temperatureC: 28, ph: 7.1, fedKgVsPrevious7Days: [1, 1.2, 0.8, 1, 1, 1.1, 0.9], fedTodayKgVs: 0.3 };
+    const input = {
+      workingVolumeM3: 2,
+      temperatureC: 28,
+      ph: 7.1,
+      fedKgVsPrevious7Days: [1, 1.2, 0.8, 1, 1, 1.1, 0.9],
+      fedTodayKgVs: 0.3,
+    };
     const budget = computeFeedBudget(input);
-    const r = projectWeeklyRoom({ limits: budget.limits, previous7DaysKgVs: input.fedKgVsPrevious7Days, fedTodayKgVs: 0.3, closed: false });
+    const r = projectWeeklyRoom({
+      limits: budget.limits,
+      previous7DaysKgVs: input.fedKgVsPrevious7Days,
+      fedTodayKgVs: 0.3,
+      closed: false,
+    });
     expect(r.dailyKgVs[0]!).toBeCloseTo(budget.budgetKgVs, 9);
     expect(r.weeklyKgScraps).toBeGreaterThan(r.weeklyKgVs);
   });

@@ -1,4 +1,11 @@
-import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from "sequelize";
+import {
+  DataTypes,
+  Model,
+  type CreationOptional,
+  type InferAttributes,
+  type InferCreationAttributes,
+  type Sequelize,
+} from "sequelize";
 
 export type ScrapMix = "mixed" | "fruitVeg" | "cooked" | "breadGrains" | "coffee";
 export type DropOffStatus = "pending" | "accepted" | "fed" | "turned_away" | "cancelled";
@@ -126,7 +133,10 @@ export class ReadingModel extends Model<InferAttributes<ReadingModel>, InferCrea
   }
 }
 
-export class FertiliserClaimModel extends Model<InferAttributes<FertiliserClaimModel>, InferCreationAttributes<FertiliserClaimModel>> {
+export class FertiliserClaimModel extends Model<
+  InferAttributes<FertiliserClaimModel>,
+  InferCreationAttributes<FertiliserClaimModel>
+> {
   declare id: CreationOptional<number>;
   declare digesterId: number;
   declare personId: number;
@@ -157,7 +167,10 @@ export class FertiliserClaimModel extends Model<InferAttributes<FertiliserClaimM
   }
 }
 
-export class CollectionRequestModel extends Model<InferAttributes<CollectionRequestModel>, InferCreationAttributes<CollectionRequestModel>> {
+export class CollectionRequestModel extends Model<
+  InferAttributes<CollectionRequestModel>,
+  InferCreationAttributes<CollectionRequestModel>
+> {
   declare id: CreationOptional<number>;
   declare householdId: number;
   declare forDate: string;

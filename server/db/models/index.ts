@@ -2,7 +2,13 @@ import { sequelize } from "../sequelize";
 import { DigesterModel } from "./digester.model";
 import { HouseholdModel } from "./household.model";
 import { DigesterStewardModel, PersonModel } from "./person.model";
-import { CollectionRequestModel, DropOffModel, FeedingModel, FertiliserClaimModel, ReadingModel } from "./activity.model";
+import {
+  CollectionRequestModel,
+  DropOffModel,
+  FeedingModel,
+  FertiliserClaimModel,
+  ReadingModel,
+} from "./activity.model";
 
 import type { Sequelize } from "sequelize";
 
@@ -12,7 +18,17 @@ let boundTo: Sequelize | undefined;
 export function models() {
   const s = sequelize();
   if (boundTo !== s) {
-    for (const m of [DigesterModel, HouseholdModel, PersonModel, DigesterStewardModel, DropOffModel, FeedingModel, ReadingModel, FertiliserClaimModel, CollectionRequestModel]) {
+    for (const m of [
+      DigesterModel,
+      HouseholdModel,
+      PersonModel,
+      DigesterStewardModel,
+      DropOffModel,
+      FeedingModel,
+      ReadingModel,
+      FertiliserClaimModel,
+      CollectionRequestModel,
+    ]) {
       m.initModel(s);
     }
     boundTo = s;

@@ -1,4 +1,11 @@
-import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from "sequelize";
+import {
+  DataTypes,
+  Model,
+  type CreationOptional,
+  type InferAttributes,
+  type InferCreationAttributes,
+  type Sequelize,
+} from "sequelize";
 
 export type Role = "resident" | "steward" | "coordinator" | "gardener";
 
@@ -41,7 +48,10 @@ export class PersonModel extends Model<InferAttributes<PersonModel>, InferCreati
   }
 }
 
-export class DigesterStewardModel extends Model<InferAttributes<DigesterStewardModel>, InferCreationAttributes<DigesterStewardModel>> {
+export class DigesterStewardModel extends Model<
+  InferAttributes<DigesterStewardModel>,
+  InferCreationAttributes<DigesterStewardModel>
+> {
   declare digesterId: number;
   declare personId: number;
 

@@ -21,7 +21,10 @@ export async function seedDemoIfEmpty(today: Date): Promise<boolean> {
   await db.transaction(async (transaction) => {
     // Two concurrent first starts must not both seed.
     await db.query("LOCK TABLE people IN EXCLUSIVE MODE", { transaction });
-    const [again] = await db.query<{ n: number }>("SELECT count(*)::int AS n FROM people", { type: QueryTypes.SELECT, transaction });
+    const [again] = await db.query<{ n: number }>("SELECT count(*)::int AS n FROM people", {
+      type: QueryTypes.SELECT,
+      transaction,
+    });
     if ((again?.n ?? 0) > 0) return;
     await insertDemo(demo, passwordHash, transaction);
   });
@@ -93,7 +96,9 @@ async function insertDemo(demo: DemoNeighbourhood, passwordHash: string, transac
   const personId = new Map(demo.people.map((p, i) => [p.key, personRows[i]!.id]));
 
   await m.DigesterSteward.bulkCreate(
-    demo.digesters.flatMap((d) => d.stewardKeys.map((k) => ({ digesterId: digesterId.get(d.key)!, personId: personId.get(k)! }))),
+    demo.digesters.flatMap((d) =>
+      d.stewardKeys.map((k) => ({ digesterId: digesterId.get(d.key)!, personId: personId.get(k)! })),
+    ),
     { transaction },
   );
 

@@ -16,5 +16,8 @@ export async function emailTaken(transaction: Transaction, email: string, except
 }
 
 export async function setEmail(transaction: Transaction, personId: number, email: string): Promise<void> {
-  await sequelize().query(`UPDATE people SET email = $2, updated_at = now() WHERE id = $1`, { bind: [personId, email], transaction });
+  await sequelize().query(`UPDATE people SET email = $2, updated_at = now() WHERE id = $1`, {
+    bind: [personId, email],
+    transaction,
+  });
 }

@@ -12,7 +12,9 @@ export function accountRouter() {
   router.patch(
     "/account",
     requireAuth,
-    handle({ body: UpdateAccountSchema }, async ({ body, caller }) => ({ body: await service.updateName(caller!, body.name) })),
+    handle({ body: UpdateAccountSchema }, async ({ body, caller }) => ({
+      body: await service.updateName(caller!, body.name),
+    })),
   );
 
   router.post(

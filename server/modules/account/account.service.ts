@@ -34,10 +34,17 @@ export async function updateName(caller: Caller, name: string): Promise<Caller> 
  * Changes the password after checking the current one, ends every other session of the person
  * (this one stays), and tells them by e-mail.
  */
-export async function changePassword(caller: Caller, input: ChangePassword, currentSessionId: string | undefined, ctx: RequestContext) {
+export async function changePassword(
+  caller: Caller,
+  input: ChangePassword,
+  currentSessionId: string | undefined,
+  ctx: RequestContext,
+) {
   await assertPassword(caller, input.currentPassword, "currentPassword");
   if (input.newPassword === input.currentPassword) {
-    throw badRequest("Please choose a new password.", { newPassword: "This is your current password; choose a different one." });
+    throw badRequest("Please choose a new password.", {
+      newPassword: "This is your current password; choose a different one.",
+    });
   }
   assertAcceptablePassword(input.newPassword, "newPassword");
   const passwordHash = await hashPassword(input.newPassword);
@@ -56,7 +63,8 @@ export async function changeEmail(caller: Caller, input: ChangeEmail, ctx: Reque
   if (input.newEmail.toLowerCase() === caller.email.toLowerCase()) {
     throw badRequest("This is already your e-mail address.", { newEmail: "This is already your address." });
   }
-  const taken = () => conflict("This e-mail address is in use.", { newEmail: "Another account already uses this address." });
+  const taken = () =>
+    conflict("This e-mail address is in use.", { newEmail: "Another account already uses this address." });
   try {
     await sequelize().transaction(async (t) => {
       if (await repo.emailTaken(t, input.newEmail, caller.id)) throw taken();

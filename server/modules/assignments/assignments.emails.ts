@@ -37,5 +37,10 @@ export function dropOffMovedEmail(input: {
     `Why: ${input.why}`,
     "Nothing else changes: bring the same buckets to the new place.",
   ];
-  return { to: input.to, subject: `Please bring your scraps to ${input.toName} on ${input.forDate}`, text: plain(lines), html: html(lines) };
+  return {
+    to: input.to,
+    subject: `Please bring your scraps to ${input.toName} on ${input.forDate}`,
+    text: plain(lines),
+    html: html(lines),
+  };
 }

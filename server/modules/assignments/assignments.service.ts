@@ -41,7 +41,10 @@ const DEFAULT_WHY =
 /** Expected kg a week: recent fed/accepted kg over the weeks since the first of them (2…8), else declared. */
 export function householdWeeklyKg(h: repo.AssignableHousehold, today: string): number {
   if (h.recentWeeks < MIN_HISTORY_WEEKS || h.firstRecentDay === null) return h.declaredWeeklyKg;
-  const spanWeeks = Math.min(HISTORY_WEEKS, Math.max(MIN_HISTORY_WEEKS, Math.ceil((daysBetween(h.firstRecentDay, today) + 1) / 7)));
+  const spanWeeks = Math.min(
+    HISTORY_WEEKS,
+    Math.max(MIN_HISTORY_WEEKS, Math.ceil((daysBetween(h.firstRecentDay, today) + 1) / 7)),
+  );
   return h.recentKg / spanWeeks;
 }
 
@@ -103,12 +106,14 @@ export async function propose(request: ProposalRequest, now = new Date()): Promi
   const householdName = (id: number | string) => householdById.get(Number(id))?.name ?? `household ${id}`;
 
   const excluded = new Set(request.excludeDigesterIds ?? []);
-  for (const id of excluded) if (!stateById.has(id)) messages.push(`Digester ${id} to exclude does not exist; ignored.`);
+  for (const id of excluded)
+    if (!stateById.has(id)) messages.push(`Digester ${id} to exclude does not exist; ignored.`);
 
   // Pins: those stored, then those in the request (which win). Two request pins for one household contradict.
   const pins = new Map<number, number>();
   const unpins = new Set(request.unpins ?? []);
-  for (const h of households) if (h.pinned && h.assignedDigesterId !== null && !unpins.has(h.id)) pins.set(h.id, h.assignedDigesterId);
+  for (const h of households)
+    if (h.pinned && h.assignedDigesterId !== null && !unpins.has(h.id)) pins.set(h.id, h.assignedDigesterId);
   const requested = new Map<number, number>();
   for (const pin of request.pins ?? []) {
     if (!householdById.has(pin.householdId)) {
@@ -191,14 +196,17 @@ export async function propose(request: ProposalRequest, now = new Date()): Promi
       `The maximum walk of ${Math.round(request.maxWalkM)} m cannot be met: ${outOfReach.length} household${outOfReach.length === 1 ? " has" : "s have"} no open digester that close. A limit of ${Math.ceil(needed)} m would reach them all.`,
     );
   }
-  if (available.length === 0) messages.push("No digester is taking scraps this week (all resting, offline or excluded).");
+  if (available.length === 0)
+    messages.push("No digester is taking scraps this week (all resting, offline or excluded).");
   const noRoom = states.filter((s) => !s.closed && !excluded.has(s.digester.id) && digesterWeeklyRoomKg(s, false) <= 0);
   if (noRoom.length > 0) {
     messages.push(
       `${noRoom
         .slice(0, 5)
         .map((s) => s.digester.name)
-        .join(", ")}${noRoom.length > 5 ? ` and ${noRoom.length - 5} more` : ""} ${noRoom.length === 1 ? "has" : "have"} no room this week (no temperature reading in 3 days, an acid warning, or a week already full), so ${noRoom.length === 1 ? "it takes" : "they take"} no households.`,
+        .join(
+          ", ",
+        )}${noRoom.length > 5 ? ` and ${noRoom.length - 5} more` : ""} ${noRoom.length === 1 ? "has" : "have"} no room this week (no temperature reading in 3 days, an acid warning, or a week already full), so ${noRoom.length === 1 ? "it takes" : "they take"} no households.`,
     );
   }
 
@@ -250,7 +258,14 @@ export async function propose(request: ProposalRequest, now = new Date()): Promi
               ? `No open digester within ${Math.round(request.maxWalkM)} m of ${name}.`
               : `No digester is open for ${name}.`
             : `Every digester within reach of ${name} is full this week (${round1(u.weeklyKg)} kg to place).`;
-    return { householdId: Number(u.householdId), householdName: name, weeklyKg: u.weeklyKg, reason: u.reason, message, suggestion };
+    return {
+      householdId: Number(u.householdId),
+      householdName: name,
+      weeklyKg: u.weeklyKg,
+      reason: u.reason,
+      message,
+      suggestion,
+    };
   });
   let currentDistanceM = 0;
   for (const h of households) {
@@ -311,7 +326,8 @@ function moveReason(
   if (h && isValidLatLng(h.lat, h.lng)) {
     const home = { lat: h.lat!, lng: h.lng! };
     const closer = haversineM(home, from.digester) - haversineM(home, to.digester);
-    if (closer >= 10) return `${to.digester.name} is about ${Math.round(closer)} m closer to your home than ${from.digester.name}.`;
+    if (closer >= 10)
+      return `${to.digester.name} is about ${Math.round(closer)} m closer to your home than ${from.digester.name}.`;
   }
   return DEFAULT_WHY;
 }
@@ -324,7 +340,10 @@ async function notifyMoves(
 ): Promise<number> {
   if (moves.length === 0) return 0;
   const [residents, states, households] = await Promise.all([
-    repo.residentsOf(moves.map((m) => m.householdId), transaction),
+    repo.residentsOf(
+      moves.map((m) => m.householdId),
+      transaction,
+    ),
     loadDigestersToday(null, { now, transaction }),
     repo.assignableHouseholds(localDate(now), transaction),
   ]);
@@ -366,7 +385,9 @@ export async function apply(request: ApplyRequest, now = new Date()): Promise<Ap
     await repo.lockAssignments(transaction);
     const current = await repo.assignmentVersion(transaction);
     if (current !== request.version) {
-      throw conflict("The assignment changed since this proposal was made (another coordinator applied one, or a pin changed). Run a new proposal; nothing was changed.");
+      throw conflict(
+        "The assignment changed since this proposal was made (another coordinator applied one, or a pin changed). Run a new proposal; nothing was changed.",
+      );
     }
     const households = await repo.assignableHouseholds(localDate(now), transaction);
     const byId = new Map(households.map((h) => [h.id, h]));
@@ -376,16 +397,20 @@ export async function apply(request: ApplyRequest, now = new Date()): Promise<Ap
     const fields: Record<string, string> = {};
     request.changes.forEach((c, i) => {
       if (!byId.has(c.householdId)) fields[`changes.${i}.householdId`] = `Household ${c.householdId} does not exist.`;
-      else if (seen.has(c.householdId)) fields[`changes.${i}.householdId`] = `Household ${c.householdId} appears twice.`;
+      else if (seen.has(c.householdId))
+        fields[`changes.${i}.householdId`] = `Household ${c.householdId} appears twice.`;
       seen.add(c.householdId);
       if (c.digesterId !== null) {
         const s = stateById.get(c.digesterId);
         if (!s) fields[`changes.${i}.digesterId`] = `Digester ${c.digesterId} does not exist.`;
-        else if (s.closed) fields[`changes.${i}.digesterId`] = `${s.digester.name} is ${s.digester.status}: it takes no households.`;
+        else if (s.closed)
+          fields[`changes.${i}.digesterId`] = `${s.digester.name} is ${s.digester.status}: it takes no households.`;
       }
-      if (c.digesterId === null && c.pinned) fields[`changes.${i}.pinned`] = "A household can be pinned only to a digester.";
+      if (c.digesterId === null && c.pinned)
+        fields[`changes.${i}.pinned`] = "A household can be pinned only to a digester.";
     });
-    if (Object.keys(fields).length > 0) throw badRequest("Some changes cannot be applied; nothing was changed.", fields);
+    if (Object.keys(fields).length > 0)
+      throw badRequest("Some changes cannot be applied; nothing was changed.", fields);
     const moves: Move[] = [];
     for (const c of request.changes) {
       const h = byId.get(c.householdId)!;
@@ -399,7 +424,10 @@ export async function apply(request: ApplyRequest, now = new Date()): Promise<Ap
     const loadsBefore = new Map<number, number>();
     for (const h of households) {
       if (h.assignedDigesterId !== null)
-        loadsBefore.set(h.assignedDigesterId, (loadsBefore.get(h.assignedDigesterId) ?? 0) + householdWeeklyKg(h, today));
+        loadsBefore.set(
+          h.assignedDigesterId,
+          (loadsBefore.get(h.assignedDigesterId) ?? 0) + householdWeeklyKg(h, today),
+        );
     }
     const why = request.reason
       ? request.reason
@@ -422,17 +450,34 @@ export async function setPin(
     if (!h) throw notFound("The household");
     const digesterId = input.digesterId ?? h.assignedDigesterId;
     if (input.pinned && digesterId === null) {
-      throw badRequest("Choose a digester to pin this household to: it has none yet.", { digesterId: "Choose a digester." });
+      throw badRequest("Choose a digester to pin this household to: it has none yet.", {
+        digesterId: "Choose a digester.",
+      });
     }
     if (input.digesterId !== undefined) {
       const [s] = await loadDigestersToday([input.digesterId], { now, transaction });
       if (!s) throw badRequest(`Digester ${input.digesterId} does not exist.`, { digesterId: "No such digester." });
-      if (s.closed) throw new AppError(409, "digester_closed", `${s.digester.name} is ${s.digester.status}: it takes no households.`);
+      if (s.closed)
+        throw new AppError(
+          409,
+          "digester_closed",
+          `${s.digester.name} is ${s.digester.status}: it takes no households.`,
+        );
     }
     await repo.setAssignment(transaction, householdId, digesterId, input.pinned);
     if (digesterId !== null && digesterId !== h.assignedDigesterId) {
-      await notifyMoves(transaction, [{ householdId, fromDigesterId: h.assignedDigesterId, toDigesterId: digesterId }], DEFAULT_WHY, now);
+      await notifyMoves(
+        transaction,
+        [{ householdId, fromDigesterId: h.assignedDigesterId, toDigesterId: digesterId }],
+        DEFAULT_WHY,
+        now,
+      );
     }
-    return { householdId, assignedDigesterId: digesterId, pinned: input.pinned, version: await repo.assignmentVersion(transaction) };
+    return {
+      householdId,
+      assignedDigesterId: digesterId,
+      pinned: input.pinned,
+      version: await repo.assignmentVersion(transaction),
+    };
   });
 }

@@ -71,7 +71,11 @@ export async function setPassword(transaction: Transaction, personId: number, pa
  * Ends every session of a person at once (all but `exceptSessionId` when given), by deleting the
  * rows: the next request with such a cookie finds no session and is anonymous.
  */
-export async function deleteSessionsOf(personId: number, exceptSessionId?: string, transaction?: Transaction): Promise<number> {
+export async function deleteSessionsOf(
+  personId: number,
+  exceptSessionId?: string,
+  transaction?: Transaction,
+): Promise<number> {
   const rows = await sequelize().query(
     `DELETE FROM sessions WHERE (sess -> 'passport' ->> 'user') = $1 AND sid <> $2 RETURNING sid`,
     { bind: [String(personId), exceptSessionId ?? ""], type: QueryTypes.SELECT, transaction },
@@ -87,7 +91,12 @@ export async function countRecentResets(personId: number, since: Date, transacti
   return Number(rows[0]?.n ?? 0);
 }
 
-export async function insertReset(transaction: Transaction, personId: number, tokenHash: string, expiresAt: Date): Promise<void> {
+export async function insertReset(
+  transaction: Transaction,
+  personId: number,
+  tokenHash: string,
+  expiresAt: Date,
+): Promise<void> {
   await sequelize().query(`INSERT INTO password_resets (token_hash, person_id, expires_at) VALUES ($1, $2, $3)`, {
     bind: [tokenHash, personId, expiresAt],
     transaction,
@@ -104,7 +113,13 @@ export interface ResetRow {
 
 /** The reset row for a token hash, locked for the rest of the transaction so it is used once. */
 export async function findResetForUpdate(transaction: Transaction, tokenHash: string): Promise<ResetRow | null> {
-  const rows = await sequelize().query<{ id: number; person_id: number; expires_at: Date; used_at: Date | null; status: CallerRow["status"] }>(
+  const rows = await sequelize().query<{
+    id: number;
+    person_id: number;
+    expires_at: Date;
+    used_at: Date | null;
+    status: CallerRow["status"];
+  }>(
     `SELECT r.id, r.person_id, r.expires_at, r.used_at, p.status
        FROM password_resets r JOIN people p ON p.id = r.person_id
       WHERE r.token_hash = $1
@@ -112,7 +127,9 @@ export async function findResetForUpdate(transaction: Transaction, tokenHash: st
     { bind: [tokenHash], type: QueryTypes.SELECT, transaction },
   );
   const r = rows[0];
-  return r ? { id: r.id, personId: r.person_id, expiresAt: new Date(r.expires_at), usedAt: r.used_at, personStatus: r.status } : null;
+  return r
+    ? { id: r.id, personId: r.person_id, expiresAt: new Date(r.expires_at), usedAt: r.used_at, personStatus: r.status }
+    : null;
 }
 
 /** Marks this and every other open reset link of the person used: one new password ends them all. */

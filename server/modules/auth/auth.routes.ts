@@ -70,7 +70,10 @@ export function authRouter() {
     "/auth/password-reset",
     handle({ body: PasswordResetRequestSchema }, async ({ body, requestId, ip }) => {
       await service.requestPasswordReset(body.email, { requestId, ip });
-      return { status: 202, body: { message: "If an account uses this address, we have sent it a link to choose a new password." } };
+      return {
+        status: 202,
+        body: { message: "If an account uses this address, we have sent it a link to choose a new password." },
+      };
     }),
   );
 
@@ -84,10 +87,13 @@ export function authRouter() {
 
   router.post(
     "/auth/password-reset/:token",
-    handle({ params: TokenParamsSchema, body: PasswordResetCompleteSchema }, async ({ params, body, requestId, ip }) => {
-      await service.completePasswordReset(params.token, body.password, { requestId, ip });
-      return { status: 204 };
-    }),
+    handle(
+      { params: TokenParamsSchema, body: PasswordResetCompleteSchema },
+      async ({ params, body, requestId, ip }) => {
+        await service.completePasswordReset(params.token, body.password, { requestId, ip });
+        return { status: 204 };
+      },
+    ),
   );
 
   return router;

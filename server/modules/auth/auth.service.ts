@@ -21,7 +21,11 @@ const RESETS_PER_HOUR = 3;
 
 /** One answer for an unknown e-mail and a wrong password, so neither reveals which accounts exist. */
 export const invalidCredentials = () =>
-  new AppError(401, "invalid_credentials", "The e-mail address or the password is not right. Check both and try again.");
+  new AppError(
+    401,
+    "invalid_credentials",
+    "The e-mail address or the password is not right. Check both and try again.",
+  );
 
 /**
  * Checks an e-mail and password. Unknown, invited and disabled accounts still cost one argon2
@@ -35,7 +39,11 @@ export async function verifyCredentials(email: string, password: string, ctx: Re
     logSecurityEvent("sign_in_succeeded", { ...ctx, userId: record.caller.id, email });
     return record.caller;
   }
-  const reason = !record ? "unknown_account" : record.status !== "active" ? `account_${record.status}` : "wrong_password";
+  const reason = !record
+    ? "unknown_account"
+    : record.status !== "active"
+      ? `account_${record.status}`
+      : "wrong_password";
   logSecurityEvent("sign_in_failed", { ...ctx, email, userId: record?.caller.id, reason });
   return null;
 }
@@ -70,20 +78,30 @@ export async function requestPasswordReset(email: string, ctx: RequestContext, n
     await repo.insertReset(t, personId, hash, expiresAt);
     await enqueueEmail(
       t,
-      passwordResetEmail({ to: record.caller.email, name: record.caller.name, link: `${appUrl()}/reset-password/${token}`, expiresAt }),
+      passwordResetEmail({
+        to: record.caller.email,
+        name: record.caller.name,
+        link: `${appUrl()}/reset-password/${token}`,
+        expiresAt,
+      }),
     );
   });
 }
 
 const linkGone = (message: string) => new AppError(410, "link_expired", message);
 const linkUnknown = () =>
-  new AppError(404, "link_not_found", "This reset link is not valid. Copy the whole link from the e-mail, or ask for a new one.");
+  new AppError(
+    404,
+    "link_not_found",
+    "This reset link is not valid. Copy the whole link from the e-mail, or ask for a new one.",
+  );
 
 async function usableReset(t: Parameters<typeof repo.findResetForUpdate>[0], token: string, now: Date) {
   const reset = await repo.findResetForUpdate(t, hashToken(token));
   if (!reset) throw linkUnknown();
   if (reset.usedAt) throw linkGone("This reset link has already been used. Ask for a new one if you still need it.");
-  if (reset.expiresAt.getTime() <= now.getTime()) throw linkGone("This reset link has expired (links work for one hour). Ask for a new one.");
+  if (reset.expiresAt.getTime() <= now.getTime())
+    throw linkGone("This reset link has expired (links work for one hour). Ask for a new one.");
   if (reset.personStatus !== "active") throw linkGone("This account is not active. Ask your coordinator for help.");
   return reset;
 }
@@ -96,7 +114,12 @@ export async function checkResetLink(token: string, now = new Date()): Promise<v
 }
 
 /** Sets the new password from a one-time link and ends every session of that person. */
-export async function completePasswordReset(token: string, password: string, ctx: RequestContext, now = new Date()): Promise<void> {
+export async function completePasswordReset(
+  token: string,
+  password: string,
+  ctx: RequestContext,
+  now = new Date(),
+): Promise<void> {
   assertAcceptablePassword(password, "password");
   const passwordHash = await hashPassword(password);
   const personId = await sequelize().transaction(async (t) => {

@@ -15,17 +15,23 @@ export interface PruneResult {
  */
 export async function pruneExpired(): Promise<PruneResult> {
   return sequelize().transaction(async (t) => {
-    const [lock] = await sequelize().query<{ locked: boolean }>(`SELECT pg_try_advisory_xact_lock(hashtext('hearthloop.housekeeping')) AS locked`, {
-      type: QueryTypes.SELECT,
-      transaction: t,
-    });
+    const [lock] = await sequelize().query<{ locked: boolean }>(
+      `SELECT pg_try_advisory_xact_lock(hashtext('hearthloop.housekeeping')) AS locked`,
+      {
+        type: QueryTypes.SELECT,
+        transaction: t,
+      },
+    );
     if (!lock?.locked) return { skipped: true, sessions: 0, rateLimitKeys: 0, links: 0 };
-    const count = async (sql: string) => (await sequelize().query(sql, { type: QueryTypes.SELECT, transaction: t })).length;
+    const count = async (sql: string) =>
+      (await sequelize().query(sql, { type: QueryTypes.SELECT, transaction: t })).length;
     const sessions = await count(`DELETE FROM sessions WHERE expire < now() RETURNING sid`);
     const rateLimitKeys = await count(`DELETE FROM rate_limit_hits WHERE reset_at < now() RETURNING key`);
     const links =
       (await count(`DELETE FROM password_resets WHERE expires_at < now() - interval '30 days' RETURNING id`)) +
-      (await count(`DELETE FROM invitations WHERE expires_at < now() - interval '30 days' AND used_at IS NULL RETURNING id`));
+      (await count(
+        `DELETE FROM invitations WHERE expires_at < now() - interval '30 days' AND used_at IS NULL RETURNING id`,
+      ));
     return { skipped: false, sessions, rateLimitKeys, links };
   });
 }

@@ -55,9 +55,12 @@ export class PgRateLimitStore implements Store {
   }
 
   async decrement(key: string) {
-    await sequelize().query(`UPDATE rate_limit_hits SET hits = greatest(hits - 1, 0) WHERE key = $1 AND reset_at > now()`, {
-      bind: [this.prefix + key],
-    });
+    await sequelize().query(
+      `UPDATE rate_limit_hits SET hits = greatest(hits - 1, 0) WHERE key = $1 AND reset_at > now()`,
+      {
+        bind: [this.prefix + key],
+      },
+    );
   }
 
   async resetKey(key: string) {

@@ -23,12 +23,16 @@ export function collectionsRouter() {
   router.get(
     "/collection-requests",
     requireAuth,
-    handle({ query: CollectionRequestsQuerySchema }, async ({ query, caller }) => ({ body: await service.listRequests(caller!, query) })),
+    handle({ query: CollectionRequestsQuerySchema }, async ({ query, caller }) => ({
+      body: await service.listRequests(caller!, query),
+    })),
   );
   router.post(
     "/collection-requests/:id/cancel",
     requireRole("resident", "coordinator"),
-    handle({ params: IdParamsSchema }, async ({ params, caller }) => ({ body: await service.cancelRequest(caller!, params.id) })),
+    handle({ params: IdParamsSchema }, async ({ params, caller }) => ({
+      body: await service.cancelRequest(caller!, params.id),
+    })),
   );
   return router;
 }

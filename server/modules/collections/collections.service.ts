@@ -13,34 +13,59 @@ import { refreshRound } from "../rounds/rounds.service";
 /** How far ahead a collection may be asked for, days. */
 export const MAX_DAYS_AHEAD = 60;
 
-export async function createRequest(caller: Caller, input: CreateCollectionRequest, now = new Date()): Promise<CollectionRequestView> {
+export async function createRequest(
+  caller: Caller,
+  input: CreateCollectionRequest,
+  now = new Date(),
+): Promise<CollectionRequestView> {
   const householdId = caller.householdId;
   if (householdId === null) {
-    throw new AppError(409, "no_household", "Register your household first: a collection is for your household's buckets.");
+    throw new AppError(
+      409,
+      "no_household",
+      "Register your household first: a collection is for your household's buckets.",
+    );
   }
   const today = localDate(now);
-  if (input.forDate < today) throw badRequest("Choose today or a later day.", { forDate: "Choose today or a later day." });
+  if (input.forDate < today)
+    throw badRequest("Choose today or a later day.", { forDate: "Choose today or a later day." });
   if (input.forDate > addDays(today, MAX_DAYS_AHEAD)) {
-    throw badRequest(`Choose a day within the next ${MAX_DAYS_AHEAD} days.`, { forDate: `Within ${MAX_DAYS_AHEAD} days.` });
+    throw badRequest(`Choose a day within the next ${MAX_DAYS_AHEAD} days.`, {
+      forDate: `Within ${MAX_DAYS_AHEAD} days.`,
+    });
   }
   return sequelize().transaction(async (transaction) => {
     // One live request per household and day; the household row lock serialises two taps.
     await repo.lockHousehold(transaction, householdId);
     if (await repo.hasLiveRequest(householdId, input.forDate, transaction)) {
-      throw conflict(`Your household already asked for a collection on ${input.forDate}. Cancel it first to change the buckets.`, {
-        forDate: "Already asked for this day.",
-      });
+      throw conflict(
+        `Your household already asked for a collection on ${input.forDate}. Cancel it first to change the buckets.`,
+        {
+          forDate: "Already asked for this day.",
+        },
+      );
     }
-    const id = await repo.insertRequest(transaction, { householdId, forDate: input.forDate, bucketCount: input.bucketCount });
+    const id = await repo.insertRequest(transaction, {
+      householdId,
+      forDate: input.forDate,
+      bucketCount: input.bucketCount,
+    });
     return (await repo.findRequestView(id, transaction))!;
   });
 }
 
-export async function listRequests(caller: Caller, query: { mine?: "true" | "false" | undefined; date?: string | undefined }) {
+export async function listRequests(
+  caller: Caller,
+  query: { mine?: "true" | "false" | undefined; date?: string | undefined },
+) {
   const mine = query.mine !== "false";
-  if (!mine && !caller.roles.includes("coordinator")) throw forbidden("Only coordinators see every household's requests.");
+  if (!mine && !caller.roles.includes("coordinator"))
+    throw forbidden("Only coordinators see every household's requests.");
   if (mine && caller.householdId === null) return { requests: [] as CollectionRequestView[] };
-  const requests = await repo.listRequestViews({ householdId: mine ? caller.householdId! : undefined, forDate: query.date });
+  const requests = await repo.listRequestViews({
+    householdId: mine ? caller.householdId! : undefined,
+    forDate: query.date,
+  });
   return { requests };
 }
 

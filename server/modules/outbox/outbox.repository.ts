@@ -39,11 +39,14 @@ export async function insertEmail(transaction: Transaction, email: NewOutboxEmai
 
 /** Takes the transaction-scoped advisory lock; false when another process is already sending. */
 export async function tryLock(transaction: Transaction, lockName: string): Promise<boolean> {
-  const rows = await sequelize().query<{ locked: boolean }>("SELECT pg_try_advisory_xact_lock(hashtext($1)) AS locked", {
-    bind: [lockName],
-    type: QueryTypes.SELECT,
-    transaction,
-  });
+  const rows = await sequelize().query<{ locked: boolean }>(
+    "SELECT pg_try_advisory_xact_lock(hashtext($1)) AS locked",
+    {
+      bind: [lockName],
+      type: QueryTypes.SELECT,
+      transaction,
+    },
+  );
   return rows[0]?.locked === true;
 }
 
@@ -89,19 +92,27 @@ export async function claim(id: number, leaseUntil: Date): Promise<boolean> {
 }
 
 export async function markSent(id: number): Promise<void> {
-  await sequelize().query(`UPDATE outbox_emails SET status = 'sent', sent_at = now(), last_error = NULL WHERE id = $1`, {
-    bind: [id],
-  });
+  await sequelize().query(
+    `UPDATE outbox_emails SET status = 'sent', sent_at = now(), last_error = NULL WHERE id = $1`,
+    {
+      bind: [id],
+    },
+  );
 }
 
 export async function markRetry(id: number, nextAttemptAt: Date, error: string): Promise<void> {
-  await sequelize().query(`UPDATE outbox_emails SET next_attempt_at = $2, last_error = $3 WHERE id = $1 AND status = 'pending'`, {
-    bind: [id, nextAttemptAt, error],
-  });
+  await sequelize().query(
+    `UPDATE outbox_emails SET next_attempt_at = $2, last_error = $3 WHERE id = $1 AND status = 'pending'`,
+    {
+      bind: [id, nextAttemptAt, error],
+    },
+  );
 }
 
 export async function markFailed(id: number, error: string): Promise<void> {
-  await sequelize().query(`UPDATE outbox_emails SET status = 'failed', last_error = $2 WHERE id = $1`, { bind: [id, error] });
+  await sequelize().query(`UPDATE outbox_emails SET status = 'failed', last_error = $2 WHERE id = $1`, {
+    bind: [id, error],
+  });
 }
 
 /** Messages not delivered (yet): failed ones first, newest first. */

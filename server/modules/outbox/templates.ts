@@ -9,7 +9,13 @@ function formatWhen(date: Date): string {
   return date.toUTCString().replace("GMT", "UTC");
 }
 
-export function invitationEmail(input: { to: string; name: string; inviterName: string; link: string; expiresAt: Date }): OutgoingEmail {
+export function invitationEmail(input: {
+  to: string;
+  name: string;
+  inviterName: string;
+  link: string;
+  expiresAt: Date;
+}): OutgoingEmail {
   const greeting = input.name ? `Hello ${input.name},` : "Hello,";
   const lines = [
     greeting,

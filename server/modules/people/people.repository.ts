@@ -44,7 +44,9 @@ function toPersonRow(r: PersonRowDb): PersonRow {
 
 /** Everyone, for the coordinators' table (one statement). */
 export async function listPeople(): Promise<PersonRow[]> {
-  const rows = await sequelize().query<PersonRowDb>(`${personRowSelect} ORDER BY p.name, p.id`, { type: QueryTypes.SELECT });
+  const rows = await sequelize().query<PersonRowDb>(`${personRowSelect} ORDER BY p.name, p.id`, {
+    type: QueryTypes.SELECT,
+  });
   return rows.map(toPersonRow);
 }
 
@@ -67,18 +69,34 @@ export interface LockedPerson {
 }
 
 /** Locks the person row for the transaction (by id or e-mail). */
-export async function lockPerson(transaction: Transaction, by: { id: number } | { email: string }): Promise<LockedPerson | null> {
+export async function lockPerson(
+  transaction: Transaction,
+  by: { id: number } | { email: string },
+): Promise<LockedPerson | null> {
   const [where, value] = "id" in by ? ["id = $1", by.id] : ["email = $1", by.email];
-  const rows = await sequelize().query<{ id: number; email: string; name: string; status: PersonStatus; roles: Role[]; has_password: boolean }>(
+  const rows = await sequelize().query<{
+    id: number;
+    email: string;
+    name: string;
+    status: PersonStatus;
+    roles: Role[];
+    has_password: boolean;
+  }>(
     `SELECT id, email, name, status, roles, password_hash IS NOT NULL AS has_password FROM people WHERE ${where} FOR UPDATE`,
     { bind: [value], type: QueryTypes.SELECT, transaction },
   );
   const r = rows[0];
-  return r ? { id: r.id, email: r.email, name: r.name, status: r.status, roles: r.roles, hasPassword: r.has_password } : null;
+  return r
+    ? { id: r.id, email: r.email, name: r.name, status: r.status, roles: r.roles, hasPassword: r.has_password }
+    : null;
 }
 
 export async function householdExists(transaction: Transaction, id: number): Promise<boolean> {
-  const rows = await sequelize().query(`SELECT 1 FROM households WHERE id = $1`, { bind: [id], type: QueryTypes.SELECT, transaction });
+  const rows = await sequelize().query(`SELECT 1 FROM households WHERE id = $1`, {
+    bind: [id],
+    type: QueryTypes.SELECT,
+    transaction,
+  });
   return rows.length === 1;
 }
 
@@ -117,7 +135,10 @@ export async function updatePerson(transaction: Transaction, id: number, changes
     sets.push(`${column} = $${bind.length}`);
   }
   if (sets.length === 0) return;
-  await sequelize().query(`UPDATE people SET ${sets.join(", ")}, updated_at = now() WHERE id = $1`, { bind, transaction });
+  await sequelize().query(`UPDATE people SET ${sets.join(", ")}, updated_at = now() WHERE id = $1`, {
+    bind,
+    transaction,
+  });
 }
 
 export async function removeStewardships(transaction: Transaction, personId: number): Promise<void> {
@@ -126,15 +147,26 @@ export async function removeStewardships(transaction: Transaction, personId: num
 
 /** Revokes a person's open invitations (a new one replaces them). */
 export async function revokeInvitations(transaction: Transaction, personId: number): Promise<void> {
-  await sequelize().query(`UPDATE invitations SET expires_at = least(expires_at, now()) WHERE person_id = $1 AND used_at IS NULL`, {
-    bind: [personId],
-    transaction,
-  });
+  await sequelize().query(
+    `UPDATE invitations SET expires_at = least(expires_at, now()) WHERE person_id = $1 AND used_at IS NULL`,
+    {
+      bind: [personId],
+      transaction,
+    },
+  );
 }
 
 export async function insertInvitation(
   transaction: Transaction,
-  input: { tokenHash: string; email: string; name: string; roles: Role[]; invitedBy: number; expiresAt: Date; personId: number },
+  input: {
+    tokenHash: string;
+    email: string;
+    name: string;
+    roles: Role[];
+    invitedBy: number;
+    expiresAt: Date;
+    personId: number;
+  },
 ): Promise<void> {
   await sequelize().query(
     `INSERT INTO invitations (token_hash, email, name, roles, invited_by, expires_at, person_id) VALUES ($1, $2, $3, $4, $5, $6, $7)`,
@@ -188,7 +220,12 @@ export async function findInvitation(tokenHash: string, transaction?: Transactio
     : null;
 }
 
-export async function activateInvitedPerson(transaction: Transaction, personId: number, name: string, passwordHash: string): Promise<void> {
+export async function activateInvitedPerson(
+  transaction: Transaction,
+  personId: number,
+  name: string,
+  passwordHash: string,
+): Promise<void> {
   await sequelize().query(
     `UPDATE people SET name = $2, password_hash = $3, status = 'active', password_changed_at = now(), updated_at = now()
       WHERE id = $1 AND status = 'invited'`,
@@ -197,11 +234,18 @@ export async function activateInvitedPerson(transaction: Transaction, personId: 
 }
 
 export async function markInvitationUsed(transaction: Transaction, invitationId: number): Promise<void> {
-  await sequelize().query(`UPDATE invitations SET used_at = now() WHERE id = $1`, { bind: [invitationId], transaction });
+  await sequelize().query(`UPDATE invitations SET used_at = now() WHERE id = $1`, {
+    bind: [invitationId],
+    transaction,
+  });
 }
 
 export async function lockDigester(transaction: Transaction, id: number): Promise<boolean> {
-  const rows = await sequelize().query(`SELECT 1 FROM digesters WHERE id = $1 FOR UPDATE`, { bind: [id], type: QueryTypes.SELECT, transaction });
+  const rows = await sequelize().query(`SELECT 1 FROM digesters WHERE id = $1 FOR UPDATE`, {
+    bind: [id],
+    type: QueryTypes.SELECT,
+    transaction,
+  });
   return rows.length === 1;
 }
 
@@ -213,13 +257,17 @@ export async function findPeopleByIds(transaction: Transaction, ids: number[]) {
   );
 }
 
-export async function replaceStewards(transaction: Transaction, digesterId: number, personIds: number[]): Promise<void> {
+export async function replaceStewards(
+  transaction: Transaction,
+  digesterId: number,
+  personIds: number[],
+): Promise<void> {
   await sequelize().query(`DELETE FROM digester_stewards WHERE digester_id = $1`, { bind: [digesterId], transaction });
   if (personIds.length === 0) return;
-  await sequelize().query(
-    `INSERT INTO digester_stewards (digester_id, person_id) SELECT $1, unnest($2::int[])`,
-    { bind: [digesterId, personIds], transaction },
-  );
+  await sequelize().query(`INSERT INTO digester_stewards (digester_id, person_id) SELECT $1, unnest($2::int[])`, {
+    bind: [digesterId, personIds],
+    transaction,
+  });
 }
 
 export async function stewardsOf(transaction: Transaction, digesterId: number) {

@@ -26,15 +26,21 @@ export function peopleRouter() {
   router.post(
     "/people/invitations",
     coordinator,
-    handle({ body: InvitePersonSchema }, async ({ body, caller }) => ({ status: 201, body: await service.invite(caller!, body) })),
+    handle({ body: InvitePersonSchema }, async ({ body, caller }) => ({
+      status: 201,
+      body: await service.invite(caller!, body),
+    })),
   );
 
   router.patch(
     "/people/:id",
     coordinator,
-    handle({ params: PersonIdParamsSchema, body: UpdatePersonSchema }, async ({ params, body, caller, requestId, ip }) => ({
-      body: await service.updatePerson(caller!, params.id, body, { requestId, ip }),
-    })),
+    handle(
+      { params: PersonIdParamsSchema, body: UpdatePersonSchema },
+      async ({ params, body, caller, requestId, ip }) => ({
+        body: await service.updatePerson(caller!, params.id, body, { requestId, ip }),
+      }),
+    ),
   );
 
   router.put(
@@ -53,11 +59,14 @@ export function peopleRouter() {
   // Accepting signs the person in straight away, in a new session.
   router.post(
     "/invitations/:token/accept",
-    handleWithSession({ params: TokenParamsSchema, body: AcceptInvitationSchema }, async ({ params, body, requestId, ip, session }) => {
-      const caller = await service.acceptInvitation(params.token, body, { requestId, ip });
-      await session.signIn(caller);
-      return { body: caller, headers: sessionHeaders(session.info()) };
-    }),
+    handleWithSession(
+      { params: TokenParamsSchema, body: AcceptInvitationSchema },
+      async ({ params, body, requestId, ip, session }) => {
+        const caller = await service.acceptInvitation(params.token, body, { requestId, ip });
+        await session.signIn(caller);
+        return { body: caller, headers: sessionHeaders(session.info()) };
+      },
+    ),
   );
 
   return router;

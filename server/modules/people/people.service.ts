@@ -6,7 +6,13 @@ import { logSecurityEvent } from "../../lib/security-log";
 import { hashToken, newOneTimeToken } from "../../lib/tokens";
 import type { Caller } from "../../middleware/handle";
 import type { AcceptInvitation, InvitationInfo, Role } from "../../../shared/schemas/auth";
-import type { DigesterStewards, InvitationCreated, PersonRow, SetStewards, UpdatePerson } from "../../../shared/schemas/people";
+import type {
+  DigesterStewards,
+  InvitationCreated,
+  PersonRow,
+  SetStewards,
+  UpdatePerson,
+} from "../../../shared/schemas/people";
 import * as authRepo from "../auth/auth.repository";
 import { assertAcceptablePassword, type RequestContext } from "../auth/auth.service";
 import { enqueueEmail } from "../outbox/outbox.service";
@@ -38,7 +44,9 @@ export async function invite(
     }
     const existing = await repo.lockPerson(t, { email: input.email });
     if (existing && existing.status !== "invited") {
-      throw conflict("This person already has an account.", { email: "Someone with this e-mail address already has an account." });
+      throw conflict("This person already has an account.", {
+        email: "Someone with this e-mail address already has an account.",
+      });
     }
     let id: number;
     if (existing) {
@@ -69,7 +77,13 @@ export async function invite(
     });
     await enqueueEmail(
       t,
-      invitationEmail({ to: input.email, name: input.name, inviterName: caller.name, link: `${appUrl()}/invitation/${token}`, expiresAt }),
+      invitationEmail({
+        to: input.email,
+        name: input.name,
+        inviterName: caller.name,
+        link: `${appUrl()}/invitation/${token}`,
+        expiresAt,
+      }),
     );
     return id;
   });
@@ -77,7 +91,11 @@ export async function invite(
 }
 
 const invitationUnknown = () =>
-  new AppError(404, "link_not_found", "This invitation link is not valid. Copy the whole link from the e-mail, or ask for a new invitation.");
+  new AppError(
+    404,
+    "link_not_found",
+    "This invitation link is not valid. Copy the whole link from the e-mail, or ask for a new invitation.",
+  );
 const linkGone = (message: string) => new AppError(410, "link_expired", message);
 
 function assertUsable(invitation: repo.InvitationRow | null, now: Date): repo.InvitationRow {
@@ -88,18 +106,29 @@ function assertUsable(invitation: repo.InvitationRow | null, now: Date): repo.In
   if (invitation.expiresAt.getTime() <= now.getTime()) {
     throw linkGone("This invitation has expired (links work for 7 days). Ask your coordinator to invite you again.");
   }
-  if (invitation.personStatus !== "invited") throw linkGone("This invitation can no longer be used. Ask your coordinator for help.");
+  if (invitation.personStatus !== "invited")
+    throw linkGone("This invitation can no longer be used. Ask your coordinator for help.");
   return invitation;
 }
 
 /** What the acceptance page shows before the person chooses a password. */
 export async function invitationInfo(token: string, now = new Date()): Promise<InvitationInfo> {
   const invitation = assertUsable(await repo.findInvitation(hashToken(token)), now);
-  return { email: invitation.email, name: invitation.name, roles: invitation.roles, expiresAt: invitation.expiresAt.toISOString() };
+  return {
+    email: invitation.email,
+    name: invitation.name,
+    roles: invitation.roles,
+    expiresAt: invitation.expiresAt.toISOString(),
+  };
 }
 
 /** Sets name and password from a one-time invitation; returns the now active person. */
-export async function acceptInvitation(token: string, input: AcceptInvitation, ctx: RequestContext, now = new Date()): Promise<Caller> {
+export async function acceptInvitation(
+  token: string,
+  input: AcceptInvitation,
+  ctx: RequestContext,
+  now = new Date(),
+): Promise<Caller> {
   assertAcceptablePassword(input.password, "password");
   const passwordHash = await hashPassword(input.password);
   const caller = await sequelize().transaction(async (t) => {
@@ -115,18 +144,28 @@ export async function acceptInvitation(token: string, input: AcceptInvitation, c
 }
 
 /** A coordinator's change to a person. Disabling ends their sessions in the same transaction. */
-export async function updatePerson(caller: Caller, id: number, changes: UpdatePerson, ctx: RequestContext): Promise<PersonRow> {
+export async function updatePerson(
+  caller: Caller,
+  id: number,
+  changes: UpdatePerson,
+  ctx: RequestContext,
+): Promise<PersonRow> {
   if (id === caller.id) {
-    if (changes.status === "disabled") throw badRequest("You cannot disable your own account.", { status: "You cannot disable yourself." });
+    if (changes.status === "disabled")
+      throw badRequest("You cannot disable your own account.", { status: "You cannot disable yourself." });
     if (changes.roles && !changes.roles.includes("coordinator")) {
-      throw badRequest("You cannot remove your own coordinator role.", { roles: "Ask another coordinator to change your roles." });
+      throw badRequest("You cannot remove your own coordinator role.", {
+        roles: "Ask another coordinator to change your roles.",
+      });
     }
   }
   const { before, row } = await sequelize().transaction(async (t) => {
     const person = await repo.lockPerson(t, { id });
     if (!person) throw notFound("This person");
     if (changes.status === "active" && !person.hasPassword) {
-      throw conflict("This person has not accepted their invitation yet.", { status: "They become active when they accept the invitation." });
+      throw conflict("This person has not accepted their invitation yet.", {
+        status: "They become active when they accept the invitation.",
+      });
     }
     if (changes.householdId != null && !(await repo.householdExists(t, changes.householdId))) {
       throw badRequest("Please check the household.", { householdId: "There is no household with this id." });
@@ -142,7 +181,12 @@ export async function updatePerson(caller: Caller, id: number, changes: UpdatePe
     logSecurityEvent("person_disabled", { ...ctx, userId: caller.id, targetId: id });
   }
   if (changes.roles && changes.roles.slice().sort().join() !== before.roles.slice().sort().join()) {
-    logSecurityEvent("roles_changed", { ...ctx, userId: caller.id, targetId: id, reason: changes.roles.join("+") || "none" });
+    logSecurityEvent("roles_changed", {
+      ...ctx,
+      userId: caller.id,
+      targetId: id,
+      reason: changes.roles.join("+") || "none",
+    });
   }
   return row;
 }
@@ -160,7 +204,8 @@ export async function setStewards(digesterId: number, input: SetStewards): Promi
       else if (!p.roles.includes("steward")) problems.push(`${p.name} does not have the steward role`);
       else if (p.status === "disabled") problems.push(`${p.name} is disabled`);
     }
-    if (problems.length > 0) throw badRequest("Some of these people cannot be stewards.", { personIds: problems.join("; ") });
+    if (problems.length > 0)
+      throw badRequest("Some of these people cannot be stewards.", { personIds: problems.join("; ") });
     await repo.replaceStewards(t, digesterId, input.personIds);
     return { digesterId, stewards: await repo.stewardsOf(t, digesterId) };
   });

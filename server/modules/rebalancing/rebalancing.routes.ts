@@ -8,7 +8,11 @@ import * as service from "./rebalancing.service";
 export function rebalancingRouter() {
   const router = Router();
   const coordinator = requireRole("coordinator");
-  router.get("/rebalancing", coordinator, handle({}, async () => ({ body: await service.rebalancingView() })));
+  router.get(
+    "/rebalancing",
+    coordinator,
+    handle({}, async () => ({ body: await service.rebalancingView() })),
+  );
   router.post(
     "/rebalancing/moves",
     coordinator,

@@ -49,9 +49,12 @@ function capacity(state: DigesterToday, day: string): number {
 
 function rooms(states: DigesterToday[], loads: repo.PendingLoad[], days: string[]): DayRoom {
   const pend = new Map<string, number>();
-  for (const l of loads) pend.set(key(l.digesterId, l.forDate), (pend.get(key(l.digesterId, l.forDate)) ?? 0) + l.freshKg);
+  for (const l of loads)
+    pend.set(key(l.digesterId, l.forDate), (pend.get(key(l.digesterId, l.forDate)) ?? 0) + l.freshKg);
   const free = new Map<string, number>();
-  for (const s of states) for (const day of days) free.set(key(s.digester.id, day), capacity(s, day) - (pend.get(key(s.digester.id, day)) ?? 0));
+  for (const s of states)
+    for (const day of days)
+      free.set(key(s.digester.id, day), capacity(s, day) - (pend.get(key(s.digester.id, day)) ?? 0));
   return { free, pending: pend };
 }
 
@@ -76,7 +79,12 @@ function suggestionsFor(p: repo.PendingDropOff, states: DigesterToday[], free: M
   const from = states.find((s) => s.digester.id === p.digesterId);
   const origin = isValidLatLng(p.lat, p.lng) ? { lat: p.lat!, lng: p.lng! } : from ? from.digester : null;
   return states
-    .filter((s) => s.digester.id !== p.digesterId && !s.closed && (free.get(key(s.digester.id, p.forDate)) ?? 0) >= p.freshKg - EPS)
+    .filter(
+      (s) =>
+        s.digester.id !== p.digesterId &&
+        !s.closed &&
+        (free.get(key(s.digester.id, p.forDate)) ?? 0) >= p.freshKg - EPS,
+    )
     .map((s) => ({
       digesterId: s.digester.id,
       name: s.digester.name,
@@ -113,7 +121,8 @@ export async function rebalancingView(now = new Date()): Promise<RebalanceView> 
     if (why === null) continue;
     const suggestions = suggestionsFor(p, states, free);
     const first = suggestions[0];
-    if (first) free.set(key(first.digesterId, p.forDate), (free.get(key(first.digesterId, p.forDate)) ?? 0) - p.freshKg);
+    if (first)
+      free.set(key(first.digesterId, p.forDate), (free.get(key(first.digesterId, p.forDate)) ?? 0) - p.freshKg);
     items.push({
       dropOffId: p.id,
       forDate: p.forDate,
@@ -149,7 +158,10 @@ export async function rebalancingView(now = new Date()): Promise<RebalanceView> 
  * nothing: any refusal names its field (`moves.<i>.…`). Residents are told by e-mail (outbox,
  * same transaction).
  */
-export async function moveDropOffs(moves: { dropOffId: number; digesterId: number }[], now = new Date()): Promise<{ moved: number; emailsQueued: number }> {
+export async function moveDropOffs(
+  moves: { dropOffId: number; digesterId: number }[],
+  now = new Date(),
+): Promise<{ moved: number; emailsQueued: number }> {
   return sequelize().transaction(async (transaction: Transaction) => {
     const today = localDate(now);
     const days = [today, addDays(today, 1)];
@@ -164,12 +176,16 @@ export async function moveDropOffs(moves: { dropOffId: number; digesterId: numbe
     for (const [i, m] of moves.entries()) {
       const dropOffField = `moves.${i}.dropOffId`;
       const digesterField = `moves.${i}.digesterId`;
-      if (seen.has(m.dropOffId)) throw badRequest(`Drop-off ${m.dropOffId} appears twice.`, { [dropOffField]: "Listed twice." });
+      if (seen.has(m.dropOffId))
+        throw badRequest(`Drop-off ${m.dropOffId} appears twice.`, { [dropOffField]: "Listed twice." });
       seen.add(m.dropOffId);
       const p = pendingById.get(m.dropOffId);
       if (!p) {
         const status = await repo.dropOffStatus(m.dropOffId, transaction);
-        if (!status) throw new AppError(404, "not_found", `Drop-off ${m.dropOffId} was not found. Nothing was moved.`, { [dropOffField]: "No such drop-off." });
+        if (!status)
+          throw new AppError(404, "not_found", `Drop-off ${m.dropOffId} was not found. Nothing was moved.`, {
+            [dropOffField]: "No such drop-off.",
+          });
         if (status.onRound && status.status === "pending" && days.includes(status.forDate)) {
           throw new AppError(
             409,
@@ -186,12 +202,18 @@ export async function moveDropOffs(moves: { dropOffId: number; digesterId: numbe
         );
       }
       const target = byId.get(m.digesterId);
-      if (!target) throw badRequest(`Digester ${m.digesterId} does not exist.`, { [digesterField]: "No such digester." });
+      if (!target)
+        throw badRequest(`Digester ${m.digesterId} does not exist.`, { [digesterField]: "No such digester." });
       if (m.digesterId === p.digesterId) continue;
       if (target.closed) {
-        throw new AppError(409, "digester_closed", `${target.digester.name} is ${target.digester.status}; choose another digester. Nothing was moved.`, {
-          [digesterField]: `${target.digester.name} is ${target.digester.status}.`,
-        });
+        throw new AppError(
+          409,
+          "digester_closed",
+          `${target.digester.name} is ${target.digester.status}; choose another digester. Nothing was moved.`,
+          {
+            [digesterField]: `${target.digester.name} is ${target.digester.status}.`,
+          },
+        );
       }
       const free = room.free.get(key(m.digesterId, p.forDate)) ?? 0;
       if (free < p.freshKg - EPS) {
@@ -209,7 +231,17 @@ export async function moveDropOffs(moves: { dropOffId: number; digesterId: numbe
       await repo.moveDropOff(transaction, p.id, m.digesterId);
       moved++;
       for (const r of await residentsOf([p.householdId], transaction)) {
-        await enqueueEmail(transaction, dropOffMovedEmail({ to: r.email, name: r.name, forDate: p.forDate, fromName, toName: target.digester.name, why }));
+        await enqueueEmail(
+          transaction,
+          dropOffMovedEmail({
+            to: r.email,
+            name: r.name,
+            forDate: p.forDate,
+            fromName,
+            toName: target.digester.name,
+            why,
+          }),
+        );
         emailsQueued++;
       }
     }

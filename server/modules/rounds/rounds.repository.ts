@@ -76,7 +76,11 @@ export interface ReservedOnDate {
  * stops of the date's planned rounds (after a re-plan deleted the rounds it replaces, those are
  * the rounds it keeps). Digesters with neither are left out.
  */
-export function reservedOnDate(transaction: Transaction, forDate: string, kgPerBucket: number): Promise<ReservedOnDate[]> {
+export function reservedOnDate(
+  transaction: Transaction,
+  forDate: string,
+  kgPerBucket: number,
+): Promise<ReservedOnDate[]> {
   return q<ReservedOnDate>(
     `SELECT digester_id AS "digesterId", sum(pending_kg)::float8 AS "pendingKg", sum(planned_kg)::float8 AS "plannedKg" FROM (
         SELECT digester_id, fresh_kg AS pending_kg, 0 AS planned_kg FROM drop_offs WHERE for_date = $1 AND status = 'pending'

@@ -2,7 +2,12 @@ import { Router } from "express";
 import { handle } from "../../middleware/handle";
 import { requireAuth } from "../../middleware/require-auth";
 import { requireRole } from "../../middleware/require-role";
-import { IdParamsSchema, PlanRoundsSchema, RoundsQuerySchema, StopParamsSchema } from "../../../shared/schemas/collections";
+import {
+  IdParamsSchema,
+  PlanRoundsSchema,
+  RoundsQuerySchema,
+  StopParamsSchema,
+} from "../../../shared/schemas/collections";
 import * as service from "./rounds.service";
 
 /** Collection rounds: coordinators plan and see all; volunteers see and work their own. */
@@ -16,7 +21,9 @@ export function roundsRouter() {
   router.get(
     "/collection-rounds",
     requireAuth,
-    handle({ query: RoundsQuerySchema }, async ({ query, caller }) => ({ body: await service.listRounds(caller!, query.date) })),
+    handle({ query: RoundsQuerySchema }, async ({ query, caller }) => ({
+      body: await service.listRounds(caller!, query.date),
+    })),
   );
   router.get(
     "/collection-rounds/:id/geojson",
@@ -30,7 +37,9 @@ export function roundsRouter() {
   router.get(
     "/collection-rounds/:id",
     requireAuth,
-    handle({ params: IdParamsSchema }, async ({ params, caller }) => ({ body: await service.roundSheet(caller!, params.id) })),
+    handle({ params: IdParamsSchema }, async ({ params, caller }) => ({
+      body: await service.roundSheet(caller!, params.id),
+    })),
   );
   router.post(
     "/collection-rounds/:id/stops/:requestId/collected",

@@ -13,7 +13,12 @@ import type { Transaction } from "sequelize";
 import { dropOffQuantities } from "../../../shared/domain/drop-offs";
 import { DEFAULT_BUCKET_LITRES } from "../../../shared/domain/feed-budget";
 import { haversineM, isValidLatLng } from "../../../shared/domain/geo";
-import { DEFAULT_MAX_END_LEG_M, DEFAULT_MAX_LEG_M, type UnplacedStopReason, planCollectionRounds } from "../../../shared/domain/rounds";
+import {
+  DEFAULT_MAX_END_LEG_M,
+  DEFAULT_MAX_LEG_M,
+  type UnplacedStopReason,
+  planCollectionRounds,
+} from "../../../shared/domain/rounds";
 import { freshKgFromKgVs } from "../../../shared/domain/scraps";
 import { projectWeeklyRoom } from "../../../shared/domain/weekly-room";
 import {
@@ -84,7 +89,9 @@ export async function planRounds(forDate: string, now = new Date()): Promise<Pla
     const requests = await repo.lockOpenRequests(transaction, forDate);
     const volunteers = await repo.availableVolunteers(transaction);
     const states = await loadDigestersToday(null, { now, transaction });
-    const reserved = new Map((await repo.reservedOnDate(transaction, forDate, COLLECTION_BUCKET_KG)).map((r) => [r.digesterId, r]));
+    const reserved = new Map(
+      (await repo.reservedOnDate(transaction, forDate, COLLECTION_BUCKET_KG)).map((r) => [r.digesterId, r]),
+    );
     const digesters = states
       .map((s) => ({
         id: String(s.digester.id),
@@ -95,12 +102,21 @@ export async function planRounds(forDate: string, now = new Date()): Promise<Pla
       .filter((d) => d.roomKg > 0);
     const messages: string[] = [];
     if (requests.length === 0) messages.push(`No open collection requests for ${forDate}.`);
-    if (volunteers.length === 0) messages.push("No volunteer with a cargo-bike load and a start point: mark someone as a volunteer on the people page.");
-    if (digesters.length === 0) messages.push(`No digester has room on ${forDate} (resting, offline, no temperature reading or full).`);
+    if (volunteers.length === 0)
+      messages.push(
+        "No volunteer with a cargo-bike load and a start point: mark someone as a volunteer on the people page.",
+      );
+    if (digesters.length === 0)
+      messages.push(`No digester has room on ${forDate} (resting, offline, no temperature reading or full).`);
 
     const started = performance.now();
     const plan = planCollectionRounds({
-      stops: requests.map((r) => ({ householdId: String(r.id), lat: r.lat, lng: r.lng, loadKg: r.bucketCount * COLLECTION_BUCKET_KG })),
+      stops: requests.map((r) => ({
+        householdId: String(r.id),
+        lat: r.lat,
+        lng: r.lng,
+        loadKg: r.bucketCount * COLLECTION_BUCKET_KG,
+      })),
       volunteers: volunteers.map((v) => ({ id: String(v.id), lat: v.lat, lng: v.lng, bikeLoadKg: v.bikeLoadKg })),
       digesters,
     });
@@ -151,7 +167,11 @@ async function isVolunteerOnly(caller: Caller): Promise<boolean> {
 }
 
 /** Rounds of a date (or all upcoming): coordinators see all, anyone else their own. */
-export async function listRounds(caller: Caller, date: string | undefined, now = new Date()): Promise<{ rounds: RoundSummary[] }> {
+export async function listRounds(
+  caller: Caller,
+  date: string | undefined,
+  now = new Date(),
+): Promise<{ rounds: RoundSummary[] }> {
   const rounds = await repo.listRoundSummaries({
     ...(date ? { forDate: date } : { fromDate: localDate(now) }),
     volunteerId: (await isVolunteerOnly(caller)) ? caller.id : undefined,
@@ -162,7 +182,8 @@ export async function listRounds(caller: Caller, date: string | undefined, now =
 async function loadRound(caller: Caller, id: number, transaction?: Transaction, lock = false) {
   const round = await repo.findRound(id, { transaction, lock });
   if (!round) throw notFound("The round");
-  if (!caller.roles.includes("coordinator") && round.volunteerId !== caller.id) throw forbidden("This is another volunteer's round.");
+  if (!caller.roles.includes("coordinator") && round.volunteerId !== caller.id)
+    throw forbidden("This is another volunteer's round.");
   return round;
 }
 
@@ -182,7 +203,8 @@ export async function refreshRound(transaction: Transaction, roundId: number): P
     previous = { lat: s.lat, lng: s.lng };
   }
   if (previous && end && stops.length > 0) totalM += haversineM(previous, end);
-  const status = stops.length === 0 ? "cancelled" : stops.every((s) => s.status === "collected") ? "done" : round.status;
+  const status =
+    stops.length === 0 ? "cancelled" : stops.every((s) => s.status === "collected") ? "done" : round.status;
   await repo.updateRoundTotals(transaction, roundId, {
     totalM: Math.round(totalM * 10) / 10,
     loadKg: stops.reduce((sum, s) => sum + s.bucketCount * COLLECTION_BUCKET_KG, 0),
@@ -230,14 +252,27 @@ export async function roundGeoJson(caller: Caller, id: number): Promise<string> 
             {
               type: "Feature",
               geometry: { type: "LineString", coordinates: line },
-              properties: { kind: "route", roundId: sheet.id, forDate: sheet.forDate, volunteer: sheet.volunteerName, totalM: sheet.totalM },
+              properties: {
+                kind: "route",
+                roundId: sheet.id,
+                forDate: sheet.forDate,
+                volunteer: sheet.volunteerName,
+                totalM: sheet.totalM,
+              },
             },
           ]
         : []),
       ...sheet.stops.map((s) => ({
         type: "Feature",
         geometry: { type: "Point", coordinates: [s.lng, s.lat] },
-        properties: { kind: "stop", seq: s.seq, household: s.householdName, address: s.addressText, buckets: s.bucketCount, status: s.status },
+        properties: {
+          kind: "stop",
+          seq: s.seq,
+          household: s.householdName,
+          address: s.addressText,
+          buckets: s.bucketCount,
+          status: s.status,
+        },
       })),
       {
         type: "Feature",
@@ -255,14 +290,20 @@ export async function roundGeoJson(caller: Caller, id: number): Promise<string> 
  * the request collected, in one transaction. A second call, a round of a later day or an end
  * digester now resting or offline is a 409.
  */
-export async function markCollected(caller: Caller, roundId: number, requestId: number, now = new Date()): Promise<RoundSheet> {
+export async function markCollected(
+  caller: Caller,
+  roundId: number,
+  requestId: number,
+  now = new Date(),
+): Promise<RoundSheet> {
   return sequelize().transaction(async (transaction) => {
     const round = await loadRound(caller, roundId, transaction, true);
     if (round.status === "cancelled") throw conflict("This round was cancelled.");
     const stop = await repo.lockStop(transaction, roundId, requestId);
     if (!stop) throw notFound("That stop on this round");
     if (stop.status === "collected") throw conflict("This stop is already marked collected.");
-    if (stop.status !== "planned") throw new AppError(409, "not_collectable", `This request is ${stop.status}; it cannot be collected.`);
+    if (stop.status !== "planned")
+      throw new AppError(409, "not_collectable", `This request is ${stop.status}; it cannot be collected.`);
     if (round.forDate > localDate(now)) {
       throw new AppError(409, "not_yet", `This round is on ${round.forDate}; mark its stops collected on that day.`);
     }

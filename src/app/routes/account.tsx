@@ -10,7 +10,12 @@ import { EmailForm } from "@/features/account/components/email-form";
 import { NameForm } from "@/features/account/components/name-form";
 import { PasswordForm } from "@/features/account/components/password-form";
 
-const roleWords: Record<string, string> = { resident: "resident", steward: "steward", coordinator: "coordinator", gardener: "gardener" };
+const roleWords: Record<string, string> = {
+  resident: "resident",
+  steward: "steward",
+  coordinator: "coordinator",
+  gardener: "gardener",
+};
 
 function AccountPage() {
   const { data: user } = useSuspenseQuery(meQueryOptions());

@@ -1,7 +1,22 @@
 import { useState } from "react";
 import { Link, useSearchParams, type LoaderFunctionArgs } from "react-router-dom";
 import { useQuery, type QueryClient } from "@tanstack/react-query";
-import { Alert, Badge, Button, EmptyState, Field, Input, PageHeader, Table, TableCaption, TBody, TD, TH, THead, TR } from "@/components/ui";
+import {
+  Alert,
+  Badge,
+  Button,
+  EmptyState,
+  Field,
+  Input,
+  PageHeader,
+  Table,
+  TableCaption,
+  TBody,
+  TD,
+  TH,
+  THead,
+  TR,
+} from "@/components/ui";
 import { RouteError } from "@/components/errors/route-error";
 import { paths } from "@/config/paths";
 import { meQueryOptions } from "@/features/auth/api/get-me";
@@ -50,9 +65,16 @@ function CollectionRoundsPage() {
           </Button>
         </form>
       ) : null}
-      {plan.error ? <Alert variant="danger" title="Could not plan">{plan.error.message}</Alert> : null}
+      {plan.error ? (
+        <Alert variant="danger" title="Could not plan">
+          {plan.error.message}
+        </Alert>
+      ) : null}
       {plan.data ? (
-        <Alert variant={plan.data.unplaced.length > 0 || plan.data.messages.length > 0 ? "warning" : "success"} title={`Planned ${plan.data.rounds.length} round${plan.data.rounds.length === 1 ? "" : "s"} for ${plan.data.forDate}, ${km(plan.data.totalM)} in all`}>
+        <Alert
+          variant={plan.data.unplaced.length > 0 || plan.data.messages.length > 0 ? "warning" : "success"}
+          title={`Planned ${plan.data.rounds.length} round${plan.data.rounds.length === 1 ? "" : "s"} for ${plan.data.forDate}, ${km(plan.data.totalM)} in all`}
+        >
           <ul className="list-disc pl-5">
             {plan.data.messages.map((m, i) => (
               <li key={`m${i}`}>{m}</li>
@@ -70,12 +92,19 @@ function CollectionRoundsPage() {
         {rounds.isPending ? (
           <p>Loading rounds…</p>
         ) : rounds.error ? (
-          <Alert variant="danger" title="Could not load rounds">{rounds.error.message}</Alert>
+          <Alert variant="danger" title="Could not load rounds">
+            {rounds.error.message}
+          </Alert>
         ) : rounds.data.rounds.length === 0 ? (
-          <EmptyState title="No rounds" description={coordinator ? "Plan a day above." : "No round is planned for you yet."} />
+          <EmptyState
+            title="No rounds"
+            description={coordinator ? "Plan a day above." : "No round is planned for you yet."}
+          />
         ) : (
           <Table label="Collection rounds">
-            <TableCaption className="sr-only">Rounds with their volunteer, stops, load, length and end digester</TableCaption>
+            <TableCaption className="sr-only">
+              Rounds with their volunteer, stops, load, length and end digester
+            </TableCaption>
             <THead>
               <TR>
                 <TH>Day</TH>
@@ -91,7 +120,10 @@ function CollectionRoundsPage() {
               {rounds.data.rounds.map((r) => (
                 <TR key={r.id}>
                   <TD>
-                    <Link to={paths.roundSheet(r.id)} className="inline-flex min-h-11 items-center font-bold text-primary underline">
+                    <Link
+                      to={paths.roundSheet(r.id)}
+                      className="inline-flex min-h-11 items-center font-bold text-primary underline"
+                    >
                       {r.forDate}
                       <span className="sr-only">: round sheet of {r.volunteerName}</span>
                     </Link>
@@ -104,7 +136,9 @@ function CollectionRoundsPage() {
                   <TD>{km(r.totalM)}</TD>
                   <TD>{r.endDigesterName}</TD>
                   <TD>
-                    <Badge tone={r.status === "done" ? "success" : "neutral"}>{r.status === "done" ? "Done" : r.status === "planned" ? "Planned" : "Cancelled"}</Badge>
+                    <Badge tone={r.status === "done" ? "success" : "neutral"}>
+                      {r.status === "done" ? "Done" : r.status === "planned" ? "Planned" : "Cancelled"}
+                    </Badge>
                   </TD>
                 </TR>
               ))}

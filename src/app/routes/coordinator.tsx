@@ -19,7 +19,9 @@ function CoordinatorPage() {
           <h2 id="rebalancing-heading" className="text-2xl font-bold">
             Rebalancing today and tomorrow
           </h2>
-          <p className="text-muted">Drop-offs waiting at a digester that is resting, offline, or has less room than what is waiting.</p>
+          <p className="text-muted">
+            Drop-offs waiting at a digester that is resting, offline, or has less room than what is waiting.
+          </p>
           <RebalancingPanel />
         </section>
       </div>

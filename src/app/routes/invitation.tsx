@@ -20,7 +20,11 @@ function InvitationPage() {
       {invitation.isError ? (
         <div className="flex flex-col gap-4">
           <Alert variant="danger" title="This invitation cannot be used" announce="assertive">
-            <p>{invitation.error instanceof ApiError ? invitation.error.message : "The invitation could not be checked. Try again."}</p>
+            <p>
+              {invitation.error instanceof ApiError
+                ? invitation.error.message
+                : "The invitation could not be checked. Try again."}
+            </p>
           </Alert>
           <p>
             <Link to={paths.signIn()} className="inline-flex min-h-11 items-center underline">
@@ -30,7 +34,11 @@ function InvitationPage() {
         </div>
       ) : null}
       {invitation.isSuccess ? (
-        <InvitationForm token={token} invitation={invitation.data} onAccepted={() => navigate(paths.account(), { replace: true, state: { welcome: true } })} />
+        <InvitationForm
+          token={token}
+          invitation={invitation.data}
+          onAccepted={() => navigate(paths.account(), { replace: true, state: { welcome: true } })}
+        />
       ) : null}
     </>
   );

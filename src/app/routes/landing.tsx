@@ -39,10 +39,10 @@ function LandingPage() {
           Why pacing matters
         </h2>
         <p>
-          The microbes that make methane are slow and sensitive. A digester fed too much easily-rotting food in a short time
-          turns sour: acids pile up, gas stops, and it needs weeks of rest. Hearthloop works out how much each digester can
-          safely take today from its size, its temperature and its latest readings, and sends surplus scraps to a digester with
-          room.
+          The microbes that make methane are slow and sensitive. A digester fed too much easily-rotting food in a short
+          time turns sour: acids pile up, gas stops, and it needs weeks of rest. Hearthloop works out how much each
+          digester can safely take today from its size, its temperature and its latest readings, and sends surplus
+          scraps to a digester with room.
         </p>
       </section>
       <section aria-labelledby="who-heading">

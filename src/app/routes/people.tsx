@@ -13,7 +13,10 @@ function PeoplePage() {
   const { data: user } = useSuspenseQuery(meQueryOptions());
   return (
     <>
-      <PageHeader title="People" description="Everyone in the group: invite people, give roles, choose stewards for each digester, or disable an account." />
+      <PageHeader
+        title="People"
+        description="Everyone in the group: invite people, give roles, choose stewards for each digester, or disable an account."
+      />
       <PeopleManager currentUserId={user?.id ?? 0} />
     </>
   );

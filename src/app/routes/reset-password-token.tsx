@@ -27,7 +27,10 @@ function ResetPasswordTokenPage() {
         </div>
       ) : null}
       {link.isSuccess ? (
-        <NewPasswordForm token={token} onDone={() => navigate(paths.signIn(), { replace: true, state: { passwordChanged: true } })} />
+        <NewPasswordForm
+          token={token}
+          onDone={() => navigate(paths.signIn(), { replace: true, state: { passwordChanged: true } })}
+        />
       ) : null}
     </>
   );

@@ -2,13 +2,28 @@ import { lazy, Suspense } from "react";
 import { Link, useParams, type LoaderFunctionArgs } from "react-router-dom";
 import type { QueryClient } from "@tanstack/react-query";
 import { COLLECTION_REQUEST_STATUS_LABELS } from "@shared/schemas/collections";
-import { Alert, Badge, Button, buttonClasses, PageHeader, Table, TableCaption, TBody, TD, TH, THead, TR } from "@/components/ui";
+import {
+  Alert,
+  Badge,
+  Button,
+  buttonClasses,
+  PageHeader,
+  Table,
+  TableCaption,
+  TBody,
+  TD,
+  TH,
+  THead,
+  TR,
+} from "@/components/ui";
 import { RouteError } from "@/components/errors/route-error";
 import { paths } from "@/config/paths";
 import { requireUser } from "@/features/auth/utils/require-user";
 import { useMarkCollected, useRoundSheet } from "@/features/collections/api/rounds";
 
-const RoundMap = lazy(async () => ({ default: (await import("@/features/collections/components/round-map")).RoundMap }));
+const RoundMap = lazy(async () => ({
+  default: (await import("@/features/collections/components/round-map")).RoundMap,
+}));
 
 const km = (m: number) => (m >= 1000 ? `${(m / 1000).toFixed(2)} km` : `${Math.round(m)} m`);
 
@@ -17,7 +32,12 @@ function RoundSheetPage() {
   const sheet = useRoundSheet(id);
   const collected = useMarkCollected(id);
   if (sheet.isPending) return <p>Loading the round…</p>;
-  if (sheet.error) return <Alert variant="danger" title="Could not load the round">{sheet.error.message}</Alert>;
+  if (sheet.error)
+    return (
+      <Alert variant="danger" title="Could not load the round">
+        {sheet.error.message}
+      </Alert>
+    );
   const s = sheet.data;
   // Stops are marked collected on the round's day (the server refuses earlier); "en-CA" gives YYYY-MM-DD.
   const later = s.forDate > new Date().toLocaleDateString("en-CA");
@@ -31,21 +51,31 @@ function RoundSheetPage() {
         <Button type="button" variant="outline" onClick={() => window.print()}>
           Print this sheet
         </Button>
-        <a className={buttonClasses("outline")} href={`/api/collection-rounds/${s.id}/geojson`} download={`round-${s.id}.geojson`}>
+        <a
+          className={buttonClasses("outline")}
+          href={`/api/collection-rounds/${s.id}/geojson`}
+          download={`round-${s.id}.geojson`}
+        >
           Download the route (GeoJSON)
         </a>
         <Link className={buttonClasses("ghost")} to={paths.collectionRounds(s.forDate)}>
           All rounds on {s.forDate}
         </Link>
       </div>
-      {collected.error ? <Alert variant="danger" title="Not marked">{collected.error.message}</Alert> : null}
+      {collected.error ? (
+        <Alert variant="danger" title="Not marked">
+          {collected.error.message}
+        </Alert>
+      ) : null}
       <div className="grid grid-cols-[minmax(0,1fr)] gap-6 lg:grid-cols-[minmax(0,3fr)_minmax(0,2fr)]">
         <section aria-labelledby="stops-heading">
           <h2 id="stops-heading" className="mb-2 text-2xl font-bold">
             Stops in order
           </h2>
           <Table label="Stops in order, with addresses">
-            <TableCaption className="sr-only">Each stop with its address, buckets and walk from the previous point</TableCaption>
+            <TableCaption className="sr-only">
+              Each stop with its address, buckets and walk from the previous point
+            </TableCaption>
             <THead>
               <TR>
                 <TH>No.</TH>
@@ -69,11 +99,19 @@ function RoundSheetPage() {
                     {stop.status === "planned" && later ? (
                       <span>To collect on {s.forDate}</span>
                     ) : stop.status === "planned" ? (
-                      <Button type="button" size="sm" data-print-hide loading={collected.isPending && collected.variables === stop.requestId} onClick={() => collected.mutate(stop.requestId)}>
+                      <Button
+                        type="button"
+                        size="sm"
+                        data-print-hide
+                        loading={collected.isPending && collected.variables === stop.requestId}
+                        onClick={() => collected.mutate(stop.requestId)}
+                      >
                         Mark collected<span className="sr-only"> at stop {stop.seq}</span>
                       </Button>
                     ) : (
-                      <Badge tone={stop.status === "collected" ? "success" : "neutral"}>{COLLECTION_REQUEST_STATUS_LABELS[stop.status]}</Badge>
+                      <Badge tone={stop.status === "collected" ? "success" : "neutral"}>
+                        {COLLECTION_REQUEST_STATUS_LABELS[stop.status]}
+                      </Badge>
                     )}
                   </TD>
                   <TD>{stop.bucketCount}</TD>

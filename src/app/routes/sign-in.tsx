@@ -16,7 +16,10 @@ function SignInPage() {
   const next = safeNext(params.get("next"));
   return (
     <>
-      <PageHeader title="Sign in" description="Hearthloop is by invitation: your neighbourhood's coordinator sends you a link to set up your account." />
+      <PageHeader
+        title="Sign in"
+        description="Hearthloop is by invitation: your neighbourhood's coordinator sends you a link to set up your account."
+      />
       <div className="flex flex-col gap-6">
         {notice?.signedOut ? <Alert variant="success" title="You have signed out" /> : null}
         {notice?.expired ? (

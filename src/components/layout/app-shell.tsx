@@ -46,7 +46,10 @@ export function AppShell({ extraNavItems = [], accountArea, children }: AppShell
       </a>
       <header className="bg-primary text-primary-foreground" data-print-hide>
         <div className="mx-auto flex max-w-6xl flex-wrap items-center justify-between gap-2 px-4 py-2">
-          <NavLink to={paths.home()} className="inline-flex min-h-11 items-center gap-2 text-xl font-bold no-underline text-primary-foreground">
+          <NavLink
+            to={paths.home()}
+            className="inline-flex min-h-11 items-center gap-2 text-xl font-bold no-underline text-primary-foreground"
+          >
             <img src="/favicon.svg" alt="" width={28} height={28} />
             Hearthloop
           </NavLink>

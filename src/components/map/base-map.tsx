@@ -8,13 +8,16 @@ import { clientEnv } from "@/config/env";
 import { useOfflineBasemap } from "./basemap";
 
 // Basemap styling reads the theme's CSS variables so colours stay role tokens.
-const css = (name: string) => (typeof document === "undefined" ? "" : getComputedStyle(document.documentElement).getPropertyValue(name).trim());
+const css = (name: string) =>
+  typeof document === "undefined" ? "" : getComputedStyle(document.documentElement).getPropertyValue(name).trim();
 
 function featureStyle(feature?: Feature): PathOptions {
   const kind = feature?.properties?.kind as string | undefined;
-  if (kind === "park") return { color: css("--hl-success"), weight: 1, fillColor: css("--hl-success-subtle"), fillOpacity: 0.9 };
+  if (kind === "park")
+    return { color: css("--hl-success"), weight: 1, fillColor: css("--hl-success-subtle"), fillOpacity: 0.9 };
   if (kind === "water") return { color: css("--hl-info"), weight: 4, opacity: 0.6 };
-  if (kind === "block") return { color: css("--hl-border"), weight: 0.5, fillColor: css("--hl-surface-muted"), fillOpacity: 0.8 };
+  if (kind === "block")
+    return { color: css("--hl-border"), weight: 0.5, fillColor: css("--hl-surface-muted"), fillOpacity: 0.8 };
   return { color: css("--hl-border"), weight: kind === "main-street" ? 7 : 4, opacity: 0.55 };
 }
 
@@ -41,9 +44,7 @@ export function BaseMap({ center, zoom = 16, bounds, label, className, children 
         className="h-full w-full rounded-md bg-surface-muted"
       >
         {offline ? (
-          basemap && (
-            <GeoJSON data={basemap} style={featureStyle} interactive={false} />
-          )
+          basemap && <GeoJSON data={basemap} style={featureStyle} interactive={false} />
         ) : (
           <TileLayer url={clientEnv.tileUrl} attribution={clientEnv.tileAttribution} />
         )}

@@ -19,7 +19,10 @@ export function Table({ label, className, containerClassName, ...props }: TableP
       role="region"
       aria-label={label}
       tabIndex={0}
-      className={cn("relative w-full max-w-full overflow-x-auto rounded-lg border border-border bg-surface", containerClassName)}
+      className={cn(
+        "relative w-full max-w-full overflow-x-auto rounded-lg border border-border bg-surface",
+        containerClassName,
+      )}
     >
       <table className={cn("w-full border-collapse text-left", className)} {...props} />
     </div>

@@ -32,7 +32,12 @@ export function EmailForm({ user, onUpdated }: { user: SessionUser; onUpdated: (
   });
 
   return (
-    <form onSubmit={onSubmit} noValidate aria-labelledby="account-email-heading" className="flex max-w-md flex-col gap-4">
+    <form
+      onSubmit={onSubmit}
+      noValidate
+      aria-labelledby="account-email-heading"
+      className="flex max-w-md flex-col gap-4"
+    >
       <h2 id="account-email-heading" className="text-2xl font-bold">
         E-mail address
       </h2>

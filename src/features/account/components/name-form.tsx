@@ -29,7 +29,12 @@ export function NameForm({ user, onUpdated }: { user: SessionUser; onUpdated: (u
   });
 
   return (
-    <form onSubmit={onSubmit} noValidate aria-labelledby="account-name-heading" className="flex max-w-md flex-col gap-4">
+    <form
+      onSubmit={onSubmit}
+      noValidate
+      aria-labelledby="account-name-heading"
+      className="flex max-w-md flex-col gap-4"
+    >
       <h2 id="account-name-heading" className="text-2xl font-bold">
         Your name
       </h2>

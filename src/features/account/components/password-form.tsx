@@ -1,7 +1,12 @@
 import { useState } from "react";
 import { useForm } from "react-hook-form";
 import { zodResolver } from "@hookform/resolvers/zod";
-import { ChangePasswordSchema, PASSWORD_MAX_LENGTH, PASSWORD_MIN_LENGTH, type ChangePassword } from "@shared/schemas/auth";
+import {
+  ChangePasswordSchema,
+  PASSWORD_MAX_LENGTH,
+  PASSWORD_MIN_LENGTH,
+  type ChangePassword,
+} from "@shared/schemas/auth";
 import { Alert, Button, Field, Input } from "@/components/ui";
 import { useChangePassword } from "../api/change-password";
 import { applyServerErrors } from "../utils/form-errors";
@@ -17,7 +22,10 @@ export function PasswordForm({ email }: { email: string }) {
     setError,
     reset,
     formState: { errors },
-  } = useForm<ChangePassword>({ resolver: zodResolver(ChangePasswordSchema), defaultValues: { currentPassword: "", newPassword: "" } });
+  } = useForm<ChangePassword>({
+    resolver: zodResolver(ChangePasswordSchema),
+    defaultValues: { currentPassword: "", newPassword: "" },
+  });
 
   const onSubmit = handleSubmit(async (values) => {
     setFormError(null);
@@ -32,7 +40,12 @@ export function PasswordForm({ email }: { email: string }) {
   });
 
   return (
-    <form onSubmit={onSubmit} noValidate aria-labelledby="account-password-heading" className="flex max-w-md flex-col gap-4">
+    <form
+      onSubmit={onSubmit}
+      noValidate
+      aria-labelledby="account-password-heading"
+      className="flex max-w-md flex-col gap-4"
+    >
       <h2 id="account-password-heading" className="text-2xl font-bold">
         Password
       </h2>

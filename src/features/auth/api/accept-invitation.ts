@@ -4,7 +4,11 @@ import { api, setCsrfToken } from "@/lib/api-client";
 import { authKeys } from "./keys";
 
 export function acceptInvitation(token: string, body: AcceptInvitation) {
-  return api(`/api/invitations/${encodeURIComponent(token)}/accept`, { method: "POST", body, schema: SessionUserSchema });
+  return api(`/api/invitations/${encodeURIComponent(token)}/accept`, {
+    method: "POST",
+    body,
+    schema: SessionUserSchema,
+  });
 }
 
 /** Accepting signs the person in (a new session). */

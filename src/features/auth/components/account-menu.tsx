@@ -30,7 +30,9 @@ export function AccountMenu({ user }: { user: SessionUser | null | undefined }) 
         size="sm"
         className={onPrimary}
         loading={signOut.isPending}
-        onClick={() => signOut.mutate(undefined, { onSettled: () => navigate(paths.signIn(), { state: { signedOut: true } }) })}
+        onClick={() =>
+          signOut.mutate(undefined, { onSettled: () => navigate(paths.signIn(), { state: { signedOut: true } }) })
+        }
       >
         Sign out
       </Button>

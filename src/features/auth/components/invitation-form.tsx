@@ -1,7 +1,12 @@
 import { useState } from "react";
 import { useForm } from "react-hook-form";
 import { zodResolver } from "@hookform/resolvers/zod";
-import { AcceptInvitationSchema, type AcceptInvitation, type InvitationInfo, type SessionUser } from "@shared/schemas/auth";
+import {
+  AcceptInvitationSchema,
+  type AcceptInvitation,
+  type InvitationInfo,
+  type SessionUser,
+} from "@shared/schemas/auth";
 import { Alert, Button, Field, Input } from "@/components/ui";
 import { useAcceptInvitation } from "../api/accept-invitation";
 import { applyServerErrors } from "../utils/form-errors";
@@ -48,7 +53,12 @@ export function InvitationForm({
       <Field label="E-mail address" hint="You sign in with this address. A coordinator can change it later.">
         <Input type="email" autoComplete="username" value={invitation.email} readOnly />
       </Field>
-      <Field label="Your name" hint="As your neighbours know you; others in the group see it." error={errors.name?.message} required>
+      <Field
+        label="Your name"
+        hint="As your neighbours know you; others in the group see it."
+        error={errors.name?.message}
+        required
+      >
         <Input autoComplete="name" {...register("name")} />
       </Field>
       <Field label="Choose a password" hint={passwordHint} error={errors.password?.message} required>

@@ -1,7 +1,12 @@
 import { useState } from "react";
 import { useForm } from "react-hook-form";
 import { zodResolver } from "@hookform/resolvers/zod";
-import { PASSWORD_MAX_LENGTH, PASSWORD_MIN_LENGTH, PasswordResetCompleteSchema, type PasswordResetComplete } from "@shared/schemas/auth";
+import {
+  PASSWORD_MAX_LENGTH,
+  PASSWORD_MIN_LENGTH,
+  PasswordResetCompleteSchema,
+  type PasswordResetComplete,
+} from "@shared/schemas/auth";
 import { Alert, Button, Field, Input } from "@/components/ui";
 import { useResetPassword } from "../api/reset-password";
 import { applyServerErrors } from "../utils/form-errors";
@@ -17,7 +22,10 @@ export function NewPasswordForm({ token, onDone }: { token: string; onDone: () =
     handleSubmit,
     setError,
     formState: { errors },
-  } = useForm<PasswordResetComplete>({ resolver: zodResolver(PasswordResetCompleteSchema), defaultValues: { password: "" } });
+  } = useForm<PasswordResetComplete>({
+    resolver: zodResolver(PasswordResetCompleteSchema),
+    defaultValues: { password: "" },
+  });
 
   const onSubmit = handleSubmit(async (values) => {
     setFormError(null);

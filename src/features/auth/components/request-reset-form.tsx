@@ -16,7 +16,10 @@ export function RequestResetForm() {
     handleSubmit,
     setError,
     formState: { errors },
-  } = useForm<PasswordResetRequest>({ resolver: zodResolver(PasswordResetRequestSchema), defaultValues: { email: "" } });
+  } = useForm<PasswordResetRequest>({
+    resolver: zodResolver(PasswordResetRequestSchema),
+    defaultValues: { email: "" },
+  });
 
   const onSubmit = handleSubmit(async (values) => {
     setFormError(null);
@@ -33,7 +36,8 @@ export function RequestResetForm() {
       {sentTo ? (
         <Alert variant="success" title="Check your e-mail">
           <p>
-            If an account uses {sentTo}, we have sent it a link to choose a new password. The link works once, for one hour.
+            If an account uses {sentTo}, we have sent it a link to choose a new password. The link works once, for one
+            hour.
           </p>
         </Alert>
       ) : null}

@@ -75,7 +75,9 @@ export function SessionExpiryWarning({ onExpired, onSignOut }: { onExpired: () =
         </>
       }
     >
-      {stay.isError ? <p className="font-bold text-danger">Could not reach Hearthloop to keep you signed in. Try again.</p> : null}
+      {stay.isError ? (
+        <p className="font-bold text-danger">Could not reach Hearthloop to keep you signed in. Try again.</p>
+      ) : null}
     </Dialog>
   );
 }

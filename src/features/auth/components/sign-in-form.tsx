@@ -53,7 +53,13 @@ export function SignInForm({ onSignedIn }: { onSignedIn: (user: SessionUser) => 
         />
       </Field>
       <Field label="Password" error={errors.password?.message} required>
-        <Input type="password" autoComplete="current-password" aria-describedby={describedBy} aria-invalid={formError ? true : undefined} {...register("password")} />
+        <Input
+          type="password"
+          autoComplete="current-password"
+          aria-describedby={describedBy}
+          aria-invalid={formError ? true : undefined}
+          {...register("password")}
+        />
       </Field>
       <div className="flex flex-wrap items-center gap-4">
         <Button type="submit" loading={signIn.isPending}>

@@ -15,7 +15,10 @@ export async function requireUser(queryClient: QueryClient, request: Request, ro
     throw redirect(paths.signIn(url.pathname + url.search));
   }
   if (roles && !roles.some((role) => user.roles.includes(role))) {
-    throw new Response(null, { status: 403, statusText: `This page is for people with the ${roles.join(" or ")} role.` });
+    throw new Response(null, {
+      status: 403,
+      statusText: `This page is for people with the ${roles.join(" or ")} role.`,
+    });
   }
   return user;
 }

@@ -23,7 +23,9 @@ export function AskForCollection() {
     <Card>
       <CardHeader>
         <CardTitle>Ask for a collection</CardTitle>
-        <p className="text-base text-muted">Cannot carry your buckets? A volunteer with a cargo bike collects them and brings them to a digester.</p>
+        <p className="text-base text-muted">
+          Cannot carry your buckets? A volunteer with a cargo bike collects them and brings them to a digester.
+        </p>
       </CardHeader>
       <CardContent className="flex flex-col gap-4">
         <form
@@ -37,7 +39,15 @@ export function AskForCollection() {
             <Input type="date" value={forDate} onChange={(e) => setForDate(e.target.value)} required />
           </Field>
           <Field label="Buckets (10 litres each)" error={fields.bucketCount}>
-            <Input type="number" min={1} max={20} step={1} value={buckets} onChange={(e) => setBuckets(e.target.value)} required />
+            <Input
+              type="number"
+              min={1}
+              max={20}
+              step={1}
+              value={buckets}
+              onChange={(e) => setBuckets(e.target.value)}
+              required
+            />
           </Field>
           <Button type="submit" loading={ask.isPending}>
             Ask for a collection
@@ -45,19 +55,30 @@ export function AskForCollection() {
         </form>
         {ask.isSuccess ? (
           <Alert variant="success" title="Asked">
-            Your collection on {ask.data.forDate} is asked for. The coordinator plans the volunteers' rounds; you get an e-mail the day
-            before when yours is on one.
+            Your collection on {ask.data.forDate} is asked for. The coordinator plans the volunteers' rounds; you get an
+            e-mail the day before when yours is on one.
           </Alert>
         ) : null}
-        {ask.error && Object.keys(fields).length === 0 ? <Alert variant="danger" title="Not asked">{ask.error.message}</Alert> : null}
+        {ask.error && Object.keys(fields).length === 0 ? (
+          <Alert variant="danger" title="Not asked">
+            {ask.error.message}
+          </Alert>
+        ) : null}
         {live.length > 0 ? (
           <ul className="flex flex-col gap-2" aria-label="Your collections">
             {live.map((r) => (
               <li key={r.id} className="flex flex-wrap items-center gap-3">
                 <span>
-                  {r.forDate}: {r.bucketCount} bucket{r.bucketCount === 1 ? "" : "s"} — {COLLECTION_REQUEST_STATUS_LABELS[r.status]}
+                  {r.forDate}: {r.bucketCount} bucket{r.bucketCount === 1 ? "" : "s"} —{" "}
+                  {COLLECTION_REQUEST_STATUS_LABELS[r.status]}
                 </span>
-                <Button type="button" size="sm" variant="outline" onClick={() => cancel.mutate(r.id)} disabled={cancel.isPending}>
+                <Button
+                  type="button"
+                  size="sm"
+                  variant="outline"
+                  onClick={() => cancel.mutate(r.id)}
+                  disabled={cancel.isPending}
+                >
                   Cancel<span className="sr-only"> the collection on {r.forDate}</span>
                 </Button>
               </li>

@@ -3,7 +3,8 @@ import type { RoundSheet } from "@shared/schemas/collections";
 import { BaseMap } from "@/components/map/base-map";
 import { textMarker } from "@/components/map/marker-icon";
 
-const css = (name: string) => (typeof document === "undefined" ? "" : getComputedStyle(document.documentElement).getPropertyValue(name).trim());
+const css = (name: string) =>
+  typeof document === "undefined" ? "" : getComputedStyle(document.documentElement).getPropertyValue(name).trim();
 
 /** A small map of the round: start, numbered stops, the end digester. The stop list is its text alternative. */
 export function RoundMap({ sheet }: { sheet: RoundSheet }) {
@@ -26,11 +27,23 @@ export function RoundMap({ sheet }: { sheet: RoundSheet }) {
       className="h-72 w-full"
     >
       <Polyline positions={line} pathOptions={{ color: css("--hl-primary"), weight: 3 }} />
-      {sheet.start ? <Marker position={[sheet.start.lat, sheet.start.lng]} icon={textMarker("home", "Start")} alt="Start" /> : null}
+      {sheet.start ? (
+        <Marker position={[sheet.start.lat, sheet.start.lng]} icon={textMarker("home", "Start")} alt="Start" />
+      ) : null}
       {sheet.stops.map((s) => (
-        <Marker key={s.requestId} position={[s.lat, s.lng]} icon={textMarker("household", `${s.seq}`)} alt={`Stop ${s.seq}`} title={`Stop ${s.seq}: ${s.addressText || s.householdName}`} />
+        <Marker
+          key={s.requestId}
+          position={[s.lat, s.lng]}
+          icon={textMarker("household", `${s.seq}`)}
+          alt={`Stop ${s.seq}`}
+          title={`Stop ${s.seq}: ${s.addressText || s.householdName}`}
+        />
       ))}
-      <Marker position={[sheet.endDigester.lat, sheet.endDigester.lng]} icon={textMarker("ok", sheet.endDigester.name)} alt={sheet.endDigester.name} />
+      <Marker
+        position={[sheet.endDigester.lat, sheet.endDigester.lng]}
+        icon={textMarker("ok", sheet.endDigester.name)}
+        alt={sheet.endDigester.name}
+      />
     </BaseMap>
   );
 }

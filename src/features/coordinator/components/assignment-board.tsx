@@ -269,7 +269,10 @@ export function AssignmentBoard() {
               <TableCaption className="sr-only">
                 Each household, today's digester, the proposed one, the walk and the weekly scraps
               </TableCaption>
-              <SortableHead groups={table.getHeaderGroups()} render={(header) => <table.FlexRender header={header} />} />
+              <SortableHead
+                groups={table.getHeaderGroups()}
+                render={(header) => <table.FlexRender header={header} />}
+              />
               <TBody>
                 {table.getRowModel().rows.map((row) => (
                   <TR key={row.id}>

@@ -6,10 +6,14 @@ import { BaseMap } from "@/components/map/base-map";
 import { textMarker } from "@/components/map/marker-icon";
 
 // Lines take the theme's role colours (never raw hex): moved households stand out as solid lines.
-const css = (name: string) => (typeof document === "undefined" ? "" : getComputedStyle(document.documentElement).getPropertyValue(name).trim());
+const css = (name: string) =>
+  typeof document === "undefined" ? "" : getComputedStyle(document.documentElement).getPropertyValue(name).trim();
 
 function boundsOf(p: Proposal): LatLngBoundsExpression | undefined {
-  const points = [...p.digesters.map((d) => [d.lat, d.lng] as const), ...p.assignments.map((a) => [a.lat, a.lng] as const)];
+  const points = [
+    ...p.digesters.map((d) => [d.lat, d.lng] as const),
+    ...p.assignments.map((a) => [a.lat, a.lng] as const),
+  ];
   if (points.length === 0) return undefined;
   const lats = points.map((x) => x[0]);
   const lngs = points.map((x) => x[1]);
@@ -63,7 +67,10 @@ export function ProposalMap({ proposal }: { proposal: Proposal }) {
           <Marker
             key={d.id}
             position={[d.lat, d.lng]}
-            icon={textMarker(d.available ? (d.roomKg > 0 ? "ok" : "full") : d.status === "active" ? "resting" : d.status, d.name)}
+            icon={textMarker(
+              d.available ? (d.roomKg > 0 ? "ok" : "full") : d.status === "active" ? "resting" : d.status,
+              d.name,
+            )}
             title={`${d.name}: ${d.utilisation === null ? "no room" : `${Math.round(d.utilisation * 100)} % of its weekly room`}`}
             alt={d.name}
           />

@@ -15,25 +15,46 @@ export function RebalancingPanel() {
   const [done, setDone] = useState<string | null>(null);
 
   if (isPending) return <p>Looking at today's drop-offs…</p>;
-  if (error) return <Alert variant="danger" title="Could not load rebalancing">{error.message}</Alert>;
+  if (error)
+    return (
+      <Alert variant="danger" title="Could not load rebalancing">
+        {error.message}
+      </Alert>
+    );
   const items = data.items;
   const target = (i: RebalanceItem) => Number(choice[i.dropOffId] ?? i.suggestions[0]?.digesterId ?? 0);
   const movable = items.filter((i) => target(i) > 0);
   const run = (moves: { dropOffId: number; digesterId: number }[]) =>
     move.mutate(moves, {
-      onSuccess: (r) => setDone(`Moved ${r.moved} drop-off${r.moved === 1 ? "" : "s"}; ${r.emailsQueued} resident${r.emailsQueued === 1 ? "" : "s"} told by e-mail.`),
+      onSuccess: (r) =>
+        setDone(
+          `Moved ${r.moved} drop-off${r.moved === 1 ? "" : "s"}; ${r.emailsQueued} resident${r.emailsQueued === 1 ? "" : "s"} told by e-mail.`,
+        ),
     });
 
   return (
     <div className="flex flex-col gap-4">
-      {done ? <Alert variant="success" title="Moved">{done}</Alert> : null}
-      {move.error ? <Alert variant="danger" title="Nothing was moved">{move.error.message}</Alert> : null}
+      {done ? (
+        <Alert variant="success" title="Moved">
+          {done}
+        </Alert>
+      ) : null}
+      {move.error ? (
+        <Alert variant="danger" title="Nothing was moved">
+          {move.error.message}
+        </Alert>
+      ) : null}
       {items.length === 0 ? (
-        <EmptyState title="Nothing to move" description="Every pending drop-off for today and tomorrow fits its digester." />
+        <EmptyState
+          title="Nothing to move"
+          description="Every pending drop-off for today and tomorrow fits its digester."
+        />
       ) : (
         <>
           <Table label="Drop-offs to move">
-            <TableCaption className="sr-only">Pending drop-offs at digesters that cannot take them, with where they could go</TableCaption>
+            <TableCaption className="sr-only">
+              Pending drop-offs at digesters that cannot take them, with where they could go
+            </TableCaption>
             <THead>
               <TR>
                 <TH>Household</TH>
@@ -87,7 +108,12 @@ export function RebalancingPanel() {
             </TBody>
           </Table>
           <div>
-            <Button type="button" disabled={movable.length === 0} loading={move.isPending} onClick={() => run(movable.map((i) => ({ dropOffId: i.dropOffId, digesterId: target(i) })))}>
+            <Button
+              type="button"
+              disabled={movable.length === 0}
+              loading={move.isPending}
+              onClick={() => run(movable.map((i) => ({ dropOffId: i.dropOffId, digesterId: target(i) })))}
+            >
               Move all ({movable.length})
             </Button>
           </div>

@@ -29,7 +29,13 @@ export function PublicDigesterMap({ digesters }: { digesters: PublicDigester[] }
         className="h-[28rem] min-h-80 w-full"
       >
         {digesters.map((d) => (
-          <Marker key={d.id} position={[d.location.lat, d.location.lng]} icon={textMarker(statusTone[d.status], d.name)} title={`${d.name}: ${statusWords[d.status]}`} alt={d.name}>
+          <Marker
+            key={d.id}
+            position={[d.location.lat, d.location.lng]}
+            icon={textMarker(statusTone[d.status], d.name)}
+            title={`${d.name}: ${statusWords[d.status]}`}
+            alt={d.name}
+          >
             <Popup>
               <strong>{d.name}</strong>
               <br />
@@ -48,7 +54,9 @@ export function PublicDigesterMap({ digesters }: { digesters: PublicDigester[] }
               <p className="font-bold">{d.name}</p>
               <p className="text-muted">{d.siteDescription}</p>
               <p className="mt-1 flex flex-wrap items-center gap-2">
-                <Badge tone={d.status === "active" ? "success" : d.status === "resting" ? "warning" : "danger"}>{statusWords[d.status]}</Badge>
+                <Badge tone={d.status === "active" ? "success" : d.status === "resting" ? "warning" : "danger"}>
+                  {statusWords[d.status]}
+                </Badge>
                 <span>{d.workingVolumeM3} m³ working volume</span>
               </p>
             </li>

@@ -21,19 +21,7 @@ import {
   TURNED_AWAY_REASON_LABELS,
   type DropOff,
 } from "@shared/schemas/drop-offs";
-import {
-  Alert,
-  Badge,
-  Button,
-  EmptyState,
-  Field,
-  Select,
-  Table,
-  TableCaption,
-  TBody,
-  TD,
-  TR,
-} from "@/components/ui";
+import { Alert, Badge, Button, EmptyState, Field, Select, Table, TableCaption, TBody, TD, TR } from "@/components/ui";
 import { ApiError } from "@/lib/api-client";
 import { useCancelDropOff } from "../api/cancel-drop-off";
 import { amountText, dayText, mixLabels, statusTones } from "../utils/labels";

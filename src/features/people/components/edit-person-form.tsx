@@ -76,7 +76,10 @@ export function EditPersonForm({ person, people, digesters, currentUserId, onSav
       const changed = isSteward ? digesters.filter((d) => wanted.has(d.id) !== had.has(d.id)) : [];
       for (const digester of changed) {
         const others = people.filter((p) => p.id !== person.id && p.stewardOf.includes(digester.id)).map((p) => p.id);
-        await setStewards.mutateAsync({ digesterId: digester.id, personIds: wanted.has(digester.id) ? [...others, person.id] : others });
+        await setStewards.mutateAsync({
+          digesterId: digester.id,
+          personIds: wanted.has(digester.id) ? [...others, person.id] : others,
+        });
       }
       onSaved(`Saved the changes to ${person.name}.`);
     } catch (err) {
@@ -114,7 +117,9 @@ export function EditPersonForm({ person, people, digesters, currentUserId, onSav
           <Checkbox
             key={role}
             label={roleLabels[role]}
-            hint={isSelf && role === "coordinator" ? "You cannot remove your own coordinator role." : roleDescriptions[role]}
+            hint={
+              isSelf && role === "coordinator" ? "You cannot remove your own coordinator role." : roleDescriptions[role]
+            }
             value={role}
             disabled={isSelf && role === "coordinator"}
             {...register("roles")}
@@ -124,7 +129,10 @@ export function EditPersonForm({ person, people, digesters, currentUserId, onSav
       </fieldset>
 
       {roles.includes("steward") ? (
-        <fieldset className="flex flex-col gap-1" aria-describedby={fieldErrors.personIds ? "edit-digesters-error" : undefined}>
+        <fieldset
+          className="flex flex-col gap-1"
+          aria-describedby={fieldErrors.personIds ? "edit-digesters-error" : undefined}
+        >
           <legend className="mb-1 font-bold">Looks after these digesters</legend>
           {digesters.length === 0 ? <p className="text-muted">There are no digesters yet.</p> : null}
           {digesters.map((d) => (
@@ -138,7 +146,10 @@ export function EditPersonForm({ person, people, digesters, currentUserId, onSav
         <div className="flex flex-col gap-2">
           <p>
             <span className="font-bold">Status: </span>Invited; they become active when they accept
-            {person.invitationExpiresAt ? ` (the link works until ${new Date(person.invitationExpiresAt).toLocaleString()})` : ""}.
+            {person.invitationExpiresAt
+              ? ` (the link works until ${new Date(person.invitationExpiresAt).toLocaleString()})`
+              : ""}
+            .
           </p>
           <div>
             <Button type="button" variant="outline" loading={reinvite.isPending} onClick={sendAgain}>

@@ -9,7 +9,13 @@ import { roleDescriptions, roleLabels } from "../utils/labels";
 import { applyServerErrors } from "../utils/form-errors";
 
 /** Invites someone by e-mail with their roles; they get a one-time link valid for 7 days. */
-export function InvitePersonForm({ onInvited, onCancel }: { onInvited: (created: InvitationCreated) => void; onCancel: () => void }) {
+export function InvitePersonForm({
+  onInvited,
+  onCancel,
+}: {
+  onInvited: (created: InvitationCreated) => void;
+  onCancel: () => void;
+}) {
   const invite = useInvitePerson();
   const [formError, setFormError] = useState<string | null>(null);
   const {
@@ -48,7 +54,13 @@ export function InvitePersonForm({ onInvited, onCancel }: { onInvited: (created:
       <fieldset className="flex flex-col gap-1" aria-describedby={rolesError ? "invite-roles-error" : undefined}>
         <legend className="mb-1 font-bold">Roles</legend>
         {ROLES.map((role) => (
-          <Checkbox key={role} label={roleLabels[role]} hint={roleDescriptions[role]} value={role} {...register("roles")} />
+          <Checkbox
+            key={role}
+            label={roleLabels[role]}
+            hint={roleDescriptions[role]}
+            value={role}
+            {...register("roles")}
+          />
         ))}
         {rolesError ? <FieldError id="invite-roles-error">{rolesError}</FieldError> : null}
       </fieldset>

@@ -37,19 +37,30 @@ export function PeopleManager({ currentUserId }: { currentUserId: number }) {
       <PeopleTable people={people} digesterNames={digesterNames} onEdit={onEdit} />
       <UndeliveredEmails emails={undelivered} />
 
-      <Dialog open={inviting} onClose={() => setInviting(false)} title="Invite someone" description="They get an e-mail with a link that works once, for 7 days.">
+      <Dialog
+        open={inviting}
+        onClose={() => setInviting(false)}
+        title="Invite someone"
+        description="They get an e-mail with a link that works once, for 7 days."
+      >
         {inviting ? (
           <InvitePersonForm
             onCancel={() => setInviting(false)}
             onInvited={(created) => {
               setInviting(false);
-              setNotice(`Invitation sent to ${created.email}. The link works until ${new Date(created.expiresAt).toLocaleString()}.`);
+              setNotice(
+                `Invitation sent to ${created.email}. The link works until ${new Date(created.expiresAt).toLocaleString()}.`,
+              );
             }}
           />
         ) : null}
       </Dialog>
 
-      <Dialog open={editing !== null} onClose={() => setEditingId(null)} title={editing ? `Edit ${editing.name}` : "Edit"}>
+      <Dialog
+        open={editing !== null}
+        onClose={() => setEditingId(null)}
+        title={editing ? `Edit ${editing.name}` : "Edit"}
+      >
         {editing ? (
           <EditPersonForm
             key={editing.id}

@@ -19,19 +19,7 @@ import {
 } from "@tanstack/react-table";
 import type { Role } from "@shared/schemas/auth";
 import type { PersonRow } from "@shared/schemas/people";
-import {
-  Badge,
-  Button,
-  EmptyState,
-  Field,
-  Input,
-  Select,
-  Table,
-  TableCaption,
-  TBody,
-  TD,
-  TR,
-} from "@/components/ui";
+import { Badge, Button, EmptyState, Field, Input, Select, Table, TableCaption, TBody, TD, TR } from "@/components/ui";
 import { roleLabels, statusTone, statusLabels } from "../utils/labels";
 import { SortableHead } from "@/components/data-table/sortable-head";
 import { TablePager } from "@/components/data-table/table-pager";

@@ -1,6 +1,6 @@
 /**
  * `npm test`: its own PostgreSQL cluster, databases and maildev (other ports than the demo,
- * so both can run at once), Chromium when missing, then typecheck, lint, client build and
+ * so both can run at once), Chromium when missing, then typecheck, lint, format check, client build and
  * every Vitest project including the browser tests. Stops what it started, even on failure.
  */
 import { spawn, spawnSync } from "node:child_process";
@@ -99,11 +99,17 @@ async function main(): Promise<number> {
   const bin = (pkg: string, file: string) => path.join(root, "node_modules", pkg, file);
   const results: Array<[string, boolean]> = [];
   // Typecheck and lint use one core each; the client build follows (the browser tests need it).
-  const [typecheckOk, lintOk] = await Promise.all([
+  const [typecheckOk, lintOk, formatOk] = await Promise.all([
     step("typecheck", [bin("typescript", "bin/tsc"), "--noEmit", "-p", "."], env, true),
     step("lint", [bin("eslint", "bin/eslint.js"), "."], env, true),
+    step(
+      "format (prettier --check)",
+      [bin("prettier", "bin/prettier.cjs"), "--check", "--log-level", "warn", "."],
+      env,
+      true,
+    ),
   ]);
-  results.push(["typecheck", typecheckOk], ["lint", lintOk]);
+  results.push(["typecheck", typecheckOk], ["lint", lintOk], ["format", formatOk]);
   let built = true;
   try {
     buildClientIfStale(log, "dist");

@@ -1,5 +1,5 @@
 /**
- * Collection rounds: planning a date's cargo-bike rounds with shared/domain/rounds.ts
+ * Collection rounds: planning a date's cargo-bike rounds with shared/domain/rounds/
  * (volunteers' bike loads and start points; end digesters with room for that date from the feed
  * budget), storing them, the round sheet and its GeoJSON, and marking stops collected (which
  * creates a pending drop-off at the round's end digester for its steward to accept).

@@ -1,0 +1,183 @@
+/**
+ * Building a first plan: savings construction [Clarke & Wright 1964;
+ * parametric, Yellow 1970], 2-opt inside each round [Croes 1958], ends given
+ * by regret with rooms shared [Martello & Toth 1981], and cheapest insertion
+ * of stops set aside (see index.ts for the full references).
+ */
+import {
+  type Ended,
+  KG_EPS,
+  type Network,
+  endLeg,
+  fixedEndCost,
+  loadOf,
+  roomsLeft,
+  routeCost,
+  startLeg,
+} from "./network";
+
+/** Parametric savings construction with shape λ (and optional noise); returns routes as stop-index sequences. */
+export function savings(net: Network, lambda: number, noise: (() => number) | null): number[][] {
+  const n = net.stopIdx.length;
+  const routeOf = new Int32Array(n);
+  const routes: (number[] | null)[] = [];
+  for (let a = 0; a < n; a++) {
+    routeOf[a] = a;
+    routes.push([a]);
+  }
+  const single = Array.from({ length: n }, (_, a) => ({ s: startLeg(net, a, 0), e: endLeg(net, a, 0) }));
+  const list: { i: number; j: number; s: number }[] = [];
+  for (let i = 0; i < n; i++)
+    for (let j = 0; j < n; j++) {
+      if (i === j) continue;
+      let s = single[i]!.e + single[j]!.s - lambda * net.dSS[i * n + j]!;
+      if (noise) s *= 1 + noise();
+      if (s > 0) list.push({ i, j, s });
+    }
+  list.sort((x, y) => y.s - x.s || x.i - y.i || x.j - y.j);
+  for (const { i, j } of list) {
+    const ra = routeOf[i]!;
+    const rb = routeOf[j]!;
+    if (ra === rb) continue;
+    const A = routes[ra]!;
+    const B = routes[rb]!;
+    const iAtTail = A[A.length - 1] === i;
+    const iAtHead = A[0] === i;
+    const jAtHead = B[0] === j;
+    const jAtTail = B[B.length - 1] === j;
+    if (!(iAtTail || iAtHead) || !(jAtHead || jAtTail)) continue;
+    const loadKg = loadOf(net, A) + loadOf(net, B);
+    if (loadKg > net.maxBikeKg + KG_EPS) continue;
+    const a = iAtTail ? A : [...A].reverse();
+    const b = jAtHead ? B : [...B].reverse();
+    const merged = [...a, ...b];
+    const reversed = [...merged].reverse();
+    const c1 = routeCost(net, merged, loadKg);
+    const c2 = routeCost(net, reversed, loadKg);
+    const best = c1 <= c2 ? merged : reversed;
+    if (Math.min(c1, c2) < routeCost(net, A) + routeCost(net, B) - 1e-9) {
+      routes[ra] = best;
+      routes[rb] = null;
+      for (const x of best) routeOf[x] = ra;
+    }
+  }
+  return routes.filter((r): r is number[] => r !== null);
+}
+
+/** 2-opt on one round (segment reversals, whole-round reversal included), first improvement until none. */
+export function twoOpt(net: Network, seq: number[], cost: (s: readonly number[]) => number): number[] {
+  let best = seq;
+  let bestCost = cost(best);
+  let improved = true;
+  while (improved) {
+    improved = false;
+    for (let i = 0; i < best.length - 1 && !improved; i++) {
+      for (let j = i + 1; j < best.length && !improved; j++) {
+        const cand = [...best.slice(0, i), ...best.slice(i, j + 1).reverse(), ...best.slice(j + 1)];
+        const c = cost(cand);
+        if (c < bestCost - 1e-9) {
+          best = cand;
+          bestCost = c;
+          improved = true;
+        }
+      }
+    }
+  }
+  return best;
+}
+
+/**
+ * Gives each round a digester with room left, by regret: repeatedly the
+ * round whose best and second-best feasible ends differ most is served
+ * first (a round with a single option first of all). A round no digester
+ * can take sets its heaviest stops aside (into `leftovers`) until one can.
+ */
+export function assignEnds(net: Network, routes: number[][], leftovers: number[]): Ended[] {
+  const E = net.rooms.length;
+  const left = [...net.rooms];
+  const pending = routes.map((r) => [...r]);
+  const out: Ended[] = [];
+  while (pending.length > 0) {
+    let pick = -1;
+    let pickE = -1;
+    let pickRegret = -Infinity;
+    for (let k = 0; k < pending.length; k++) {
+      const seq = pending[k]!;
+      const last = seq[seq.length - 1]!;
+      const loadKg = loadOf(net, seq);
+      let b1 = Infinity;
+      let b2 = Infinity;
+      let e1 = -1;
+      for (let e = 0; e < E; e++) {
+        if (left[e]! + KG_EPS < loadKg) continue;
+        const c = net.dSE[last * E + e]!;
+        if (c < b1) {
+          b2 = b1;
+          b1 = c;
+          e1 = e;
+        } else if (c < b2) b2 = c;
+      }
+      const regret = e1 < 0 ? Infinity : b2 - b1;
+      if (regret > pickRegret) {
+        pickRegret = regret;
+        pick = k;
+        pickE = e1;
+      }
+    }
+    const seq = pending[pick]!;
+    if (pickE < 0) {
+      // Nothing can take this round whole: set its heaviest stop aside (re-inserted later if any room is left).
+      let heaviest = 0;
+      seq.forEach((a, p) => {
+        if (net.load[a]! > net.load[seq[heaviest]!]!) heaviest = p;
+      });
+      leftovers.push(seq[heaviest]!);
+      seq.splice(heaviest, 1);
+      if (seq.length === 0) pending.splice(pick, 1);
+      continue;
+    }
+    pending.splice(pick, 1);
+    left[pickE] = left[pickE]! - loadOf(net, seq);
+    out.push({ seq, digester: pickE });
+  }
+  return out;
+}
+
+/**
+ * Puts set-aside stops back: cheapest insertion into a round whose bike and
+ * digester still have room, else a new one-stop round to a digester with
+ * room left; what still fits nowhere is returned (really no room).
+ */
+export function insertLeftovers(net: Network, ended: Ended[], leftovers: readonly number[]): number[] {
+  const E = net.rooms.length;
+  const dropped: number[] = [];
+  for (const a of leftovers) {
+    const w = net.load[a]!;
+    const left = roomsLeft(net, ended);
+    let best = Infinity;
+    let apply: (() => void) | null = null;
+    ended.forEach((r, k) => {
+      if (left[r.digester]! + KG_EPS < w || loadOf(net, r.seq) + w > net.maxBikeKg + KG_EPS) return;
+      const before = fixedEndCost(net, r.seq, r.digester);
+      for (let q = 0; q <= r.seq.length; q++) {
+        const seq = [...r.seq.slice(0, q), a, ...r.seq.slice(q)];
+        const delta = fixedEndCost(net, seq, r.digester) - before;
+        if (delta < best) {
+          best = delta;
+          apply = () => (ended[k] = { seq, digester: r.digester });
+        }
+      }
+    });
+    for (let e = 0; e < E; e++) {
+      if (left[e]! + KG_EPS < w) continue;
+      const c = fixedEndCost(net, [a], e);
+      if (c < best) {
+        best = c;
+        apply = () => ended.push({ seq: [a], digester: e });
+      }
+    }
+    if (apply && best < Infinity) (apply as () => void)();
+    else dropped.push(a);
+  }
+  return dropped;
+}

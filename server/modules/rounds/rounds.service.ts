@@ -13,12 +13,7 @@ import type { Transaction } from "sequelize";
 import { dropOffQuantities } from "../../../shared/domain/drop-offs";
 import { DEFAULT_BUCKET_LITRES } from "../../../shared/domain/feed-budget";
 import { haversineM, isValidLatLng } from "../../../shared/domain/geo";
-import {
-  DEFAULT_MAX_END_LEG_M,
-  DEFAULT_MAX_LEG_M,
-  type UnplacedStopReason,
-  planCollectionRounds,
-} from "../../../shared/domain/rounds";
+import { planCollectionRounds } from "../../../shared/domain/rounds";
 import { freshKgFromKgVs } from "../../../shared/domain/scraps";
 import { projectWeeklyRoom } from "../../../shared/domain/weekly-room";
 import {
@@ -34,6 +29,7 @@ import type { Caller } from "../../middleware/handle";
 import { type DigesterToday, loadDigestersToday } from "../digesters/digester-state.service";
 import { insertDropOff } from "../drop-offs/drop-offs.repository";
 import * as repo from "./rounds.repository";
+import { planMessageWords, unplacedStopWords } from "./rounds.words";
 
 /** What is already headed for a digester on the date planned, fresh kg (see repo.reservedOnDate). */
 export interface ReservedKg {
@@ -63,16 +59,6 @@ export function roomOnDateKg(state: DigesterToday, forDate: string, reserved: Re
 
 /** Planning's density of a collected bucket, kg/L: the drop-off records what the plan reserved (the steward weighs on accepting). */
 const COLLECTION_KG_PER_LITRE = COLLECTION_BUCKET_KG / DEFAULT_BUCKET_LITRES;
-
-/** The coordinator's words per reason (the domain's own messages name the request id, not the household). */
-const UNPLACED_WORDS: Record<UnplacedStopReason, string> = {
-  noLocation: "the household has no location on the map; add one, or ask them to bring the buckets.",
-  invalidLoad: "the request has no valid number of buckets.",
-  heavierThanAnyBike: "more buckets than any volunteer's cargo bike can carry; split it over two days.",
-  noDigesterWithRoom: `no digester within ${DEFAULT_MAX_END_LEG_M / 1000} km has room left for it on this date; plan it another day.`,
-  noDigesterWithinReach: `no digester with room is within ${DEFAULT_MAX_END_LEG_M / 1000} km of it; plan it another day or ask the household to bring the buckets.`,
-  noVolunteer: `no volunteer with a big enough cargo bike starts within ${DEFAULT_MAX_LEG_M / 1000} km of it; plan it another day or find a volunteer nearby.`,
-};
 
 /** Plans (or re-plans) a date: planned rounds with nothing collected yet are replaced. */
 export async function planRounds(forDate: string, now = new Date()): Promise<PlanResult> {
@@ -121,7 +107,12 @@ export async function planRounds(forDate: string, now = new Date()): Promise<Pla
       digesters,
     });
     const solveMs = performance.now() - started;
-    for (const m of plan.messages) messages.push(m);
+    const volunteerNames = new Map(volunteers.map((v) => [String(v.id), v.name]));
+    const digesterNames = new Map(states.map((s) => [String(s.digester.id), s.digester.name]));
+    for (const m of plan.messages)
+      messages.push(
+        planMessageWords(m, { volunteer: (id) => volunteerNames.get(id), digester: (id) => digesterNames.get(id) }),
+      );
 
     // Three statements whatever the number of rounds and stops.
     const roundIds = await repo.insertRounds(
@@ -153,7 +144,7 @@ export async function planRounds(forDate: string, now = new Date()): Promise<Pla
         requestId: Number(u.householdId),
         householdName: names.get(u.householdId) ?? "",
         reason: u.reason,
-        message: `${names.get(u.householdId) ?? "A request"}: ${UNPLACED_WORDS[u.reason]}`,
+        message: unplacedStopWords(u, names.get(u.householdId)),
       })),
       messages,
       totalM: plan.totalLengthM,

@@ -2,7 +2,7 @@
  * From the solver's index rounds to the plan the caller reads.
  */
 import { kg, metres } from "../../units";
-import { type Ended, KG_EPS, type Network, loadOf, round1 } from "./network";
+import { type Ended, KG_EPS, type Network, loadOf } from "./network";
 import type { CollectionPlan, CollectionRound, RoundStop } from "./result";
 
 /**
@@ -21,7 +21,9 @@ export function buildPlan(net: Network, ended: Ended[], dropped: number[]): Coll
       householdId: s.householdId,
       loadKg: kg(s.loadKg),
       reason: "noDigesterWithRoom",
-      message: `The room of the digesters within ${round1(net.maxEndLegM / 1000)} km is used by other rounds on this date; the ${round1(s.loadKg)} kg from ${s.householdId} should be collected another day.`,
+      takenByOtherRounds: true,
+      largestRoomKg: kg(net.maxRoomKg),
+      maxEndLegM: metres(net.maxEndLegM),
     });
   }
   const delivered = new Float64Array(E);
@@ -48,8 +50,7 @@ export function buildPlan(net: Network, ended: Ended[], dropped: number[]): Coll
     };
   });
   const messages = [...net.messages];
-  if (unplaced.length > 0)
-    messages.push(`${unplaced.length} collection(s) could not be planned; see the list for reasons.`);
+  if (unplaced.length > 0) messages.push({ code: "stopsUnplaced", count: unplaced.length });
   return {
     rounds,
     unplacedStops: unplaced,

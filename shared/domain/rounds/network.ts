@@ -4,7 +4,7 @@
  * {@link CollectionRoundsOptions} applied (a leg over its cap is Infinity),
  * and the costs every method shares.
  */
-import { kg } from "../../units";
+import { kg, metres } from "../../units";
 import { type LatLng, haversineM, isValidLatLng } from "../geo";
 import {
   type CollectionRoundsInput,
@@ -13,7 +13,14 @@ import {
   DEFAULT_MAX_END_LEG_M,
   DEFAULT_MAX_LEG_M,
 } from "./model";
-import type { UnplacedStop, UnplacedStopReason } from "./result";
+import type { CollectionPlanMessage, UnplacedStop } from "./result";
+
+/** An unplaced stop's reason and parameters, without the stop's own fields. */
+export type UnplacedReasonOf = UnplacedStop extends infer U
+  ? U extends unknown
+    ? Omit<U, "householdId" | "loadKg">
+    : never
+  : never;
 
 /** Slack on kg comparisons, so that rounding never refuses a load that fits exactly. */
 export const KG_EPS = 1e-9;
@@ -33,10 +40,12 @@ export interface Network {
   readonly bikes: readonly number[];
   readonly rooms: readonly number[];
   readonly maxBikeKg: number;
-  /** The cap on the last leg in force, metres. */
+  readonly maxRoomKg: number;
+  /** The caps in force, metres. */
+  readonly maxLegM: number;
   readonly maxEndLegM: number;
   readonly unplaced: UnplacedStop[];
-  readonly messages: string[];
+  readonly messages: CollectionPlanMessage[];
 }
 
 /** A stop's position (the caller has checked it is valid). */
@@ -55,16 +64,16 @@ export function prepareNetwork(
     x !== undefined && Number.isFinite(x) && x > 0 ? x : fallback;
   const maxEndLegM = positive(options.maxEndLegM, DEFAULT_MAX_END_LEG_M);
   const maxLegM = positive(options.maxLegM, DEFAULT_MAX_LEG_M);
-  const messages: string[] = [];
+  const messages: CollectionPlanMessage[] = [];
   const unplaced: UnplacedStop[] = [];
   const volunteers = input.volunteers.filter((v) => {
     const ok = isValidLatLng(v.lat, v.lng) && Number.isFinite(v.bikeLoadKg) && v.bikeLoadKg > 0;
-    if (!ok) messages.push(`Volunteer ${v.id} has no valid start point or bike load; left out of the rounds.`);
+    if (!ok) messages.push({ code: "volunteerLeftOut", volunteerId: v.id });
     return ok;
   });
   const digesters = input.digesters.filter((d) => {
     const ok = isValidLatLng(d.lat, d.lng);
-    if (!ok) messages.push(`Digester ${d.id} has no valid location; no round ends there.`);
+    if (!ok) messages.push({ code: "digesterLeftOut", digesterId: d.id });
     return ok;
   });
   const cleanInput: CollectionRoundsInput = { stops: input.stops, volunteers, digesters };
@@ -72,49 +81,36 @@ export function prepareNetwork(
   const rooms = digesters.map((d) => (Number.isFinite(d.roomKg) ? Math.max(0, d.roomKg) : 0));
   const maxBikeKg = bikes.reduce((m, b) => Math.max(m, b), 0);
   const maxRoomKg = rooms.reduce((m, r) => Math.max(m, r), 0);
-  if (volunteers.length === 0 && input.stops.length > 0)
-    messages.push("No volunteer with a cargo bike is available for these collections.");
+  if (volunteers.length === 0 && input.stops.length > 0) messages.push({ code: "noVolunteers" });
   const stopIdx: number[] = [];
-  const drop = (s: CollectionStop, reason: UnplacedStopReason, message: string) =>
+  const drop = (s: CollectionStop, why: UnplacedReasonOf) =>
     unplaced.push({
       householdId: s.householdId,
       loadKg: kg(Number.isFinite(s.loadKg) ? Math.max(0, s.loadKg) : 0),
-      reason,
-      message,
+      ...why,
     });
+  const heavier = { reason: "heavierThanAnyBike", largestBikeKg: kg(maxBikeKg) } as const;
+  const noVolunteer = {
+    reason: "noVolunteer",
+    volunteersAvailable: volunteers.length,
+    maxLegM: metres(maxLegM),
+  } as const;
   input.stops.forEach((s, i) => {
-    if (!isValidLatLng(s.lat, s.lng))
-      drop(s, "noLocation", `Collection for ${s.householdId} has no location on the map; add one to plan it.`);
-    else if (!Number.isFinite(s.loadKg) || s.loadKg < 0)
-      drop(s, "invalidLoad", `Collection for ${s.householdId} has no valid load (${s.loadKg}).`);
-    else if (volunteers.length === 0)
-      drop(s, "noVolunteer", `No volunteer is available to collect from ${s.householdId}.`);
+    if (!isValidLatLng(s.lat, s.lng)) drop(s, { reason: "noLocation" });
+    else if (!Number.isFinite(s.loadKg) || s.loadKg < 0) drop(s, { reason: "invalidLoad" });
+    else if (volunteers.length === 0) drop(s, noVolunteer);
     else if (!volunteers.some((v) => v.bikeLoadKg + KG_EPS >= s.loadKg && haversineM(v, pos(s)) <= maxLegM))
-      drop(
-        s,
-        s.loadKg > maxBikeKg + KG_EPS ? "heavierThanAnyBike" : "noVolunteer",
-        s.loadKg > maxBikeKg + KG_EPS
-          ? `Collection for ${s.householdId} (${round1(s.loadKg)} kg) is heavier than any cargo bike (largest ${round1(maxBikeKg)} kg); split it over two dates.`
-          : `No volunteer whose bike carries ${round1(s.loadKg)} kg starts within ${round1(maxLegM / 1000)} km of ${s.householdId}.`,
-      );
-    else if (s.loadKg > maxBikeKg + KG_EPS)
-      drop(
-        s,
-        "heavierThanAnyBike",
-        `Collection for ${s.householdId} (${round1(s.loadKg)} kg) is heavier than any cargo bike (largest ${round1(maxBikeKg)} kg); split it over two dates.`,
-      );
+      drop(s, s.loadKg > maxBikeKg + KG_EPS ? heavier : noVolunteer);
+    else if (s.loadKg > maxBikeKg + KG_EPS) drop(s, heavier);
     else if (s.loadKg > maxRoomKg + KG_EPS)
-      drop(
-        s,
-        "noDigesterWithRoom",
-        `No digester has room for the ${round1(s.loadKg)} kg collected from ${s.householdId} on this date; collect it another day.`,
-      );
+      drop(s, {
+        reason: "noDigesterWithRoom",
+        takenByOtherRounds: false,
+        largestRoomKg: kg(maxRoomKg),
+        maxEndLegM: metres(maxEndLegM),
+      });
     else if (!digesters.some((d, e) => rooms[e]! + KG_EPS >= s.loadKg && haversineM(pos(s), d) <= maxEndLegM))
-      drop(
-        s,
-        "noDigesterWithinReach",
-        `No digester with room for the ${round1(s.loadKg)} kg from ${s.householdId} is within ${round1(maxEndLegM / 1000)} km; collect it another day or ask a steward further away.`,
-      );
+      drop(s, { reason: "noDigesterWithinReach", maxLegM: metres(maxLegM), maxEndLegM: metres(maxEndLegM) });
     else stopIdx.push(i);
   });
   const n = stopIdx.length;
@@ -146,14 +142,13 @@ export function prepareNetwork(
     bikes,
     rooms,
     maxBikeKg,
+    maxRoomKg,
+    maxLegM,
     maxEndLegM,
     unplaced,
     messages,
   };
 }
-
-/** Rounds to 0.1 (kg or km in messages). */
-export const round1 = (x: number) => Math.round(x * 10) / 10;
 
 /** Nearest start of a volunteer whose bike carries `loadKg` to stop a; Infinity if none. */
 export function startLeg(net: Network, a: number, loadKg: number): number {

@@ -59,7 +59,9 @@ describe("rounds words: why a request was left out", () => {
     const waiting = Object.values(taken.unplaced);
     expect(waiting).toHaveLength(2);
     for (const w of waiting)
-      expect(w).toMatch(/the digesters within 5 km is taken by the other rounds; plan it another day\.$/);
+      expect(w).toMatch(
+        /the other rounds of this date use the room left at the digesters within 5 km, or the stops it would be reached through;/,
+      );
     const full = words({
       stops: [{ householdId: "Big", ...onLine(100), loadKg: 9 }],
       volunteers: [{ id: "v", ...onLine(0), bikeLoadKg: 10 }],

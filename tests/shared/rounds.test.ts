@@ -4,12 +4,14 @@ import {
   type CollectionPlan,
   type CollectionRoundsInput,
   DEFAULT_MAX_END_LEG_M,
+  DEFAULT_MAX_LEG_M,
   EXACT_ROUNDS_MAX_STOPS,
   collectionRoundsLowerBoundM,
   exactCollectionRounds,
   planCollectionRounds,
 } from "../../shared/domain/rounds";
 import { destinationPoint, haversineM } from "../../shared/domain/geo";
+import { seededRandom } from "../../shared/random";
 
 // Points on one meridian: distances along it are exactly the metres given.
 const origin = { lat: 52.09, lng: 5.12 };
@@ -20,7 +22,12 @@ const lineStops = (loadKg: number) =>
   [100, 200, 300].map((m, i) => ({ householdId: `s${i + 1}`, ...onLine(m), loadKg }));
 
 /** Invariants every plan must satisfy, recomputed from the input. */
-function checkPlan(input: CollectionRoundsInput, plan: CollectionPlan, maxEndLegM = DEFAULT_MAX_END_LEG_M) {
+function checkPlan(
+  input: CollectionRoundsInput,
+  plan: CollectionPlan,
+  maxEndLegM = DEFAULT_MAX_END_LEG_M,
+  maxLegM = DEFAULT_MAX_LEG_M,
+) {
   const bike = new Map(input.volunteers.map((v) => [v.id, v.bikeLoadKg]));
   const room = new Map(input.digesters.map((d) => [d.id, d.roomKg]));
   const delivered = new Map<string, number>();
@@ -37,6 +44,7 @@ function checkPlan(input: CollectionRoundsInput, plan: CollectionPlan, maxEndLeg
     expect(r.endLegM).toBeCloseTo(haversineM(r.stops.at(-1)!, end), 6);
     const v = input.volunteers.find((x) => x.id === r.volunteerId)!;
     expect(r.stops[0]!.legM).toBeCloseTo(haversineM(v, r.stops[0]!), 6);
+    for (const s of r.stops) expect(s.legM).toBeLessThanOrEqual(maxLegM + 1e-6);
     for (const s of r.stops) seen.set(s.householdId, (seen.get(s.householdId) ?? 0) + 1);
   }
   for (const [d, kg] of delivered) expect(kg).toBeLessThanOrEqual(room.get(d)! + 1e-9);
@@ -228,6 +236,127 @@ describe("collection rounds: hand-solved instances", () => {
   });
 });
 
+describe("collection rounds: chains of legs within the cap", () => {
+  // Every leg of these rounds is at most 5 km, although a stop's straight line to the volunteer or to the
+  // digester is longer: the stop can be served through its neighbour, so it must not be reported.
+  const ids = (plan: CollectionPlan) => plan.rounds.map((r) => r.stops.map((s) => s.householdId));
+  const heuristic = { exactMaxStops: 0 } as const;
+
+  it("when a stop reaches the digester only through the next stop, then both are collected in one round (7.8 km)", () => {
+    // Volunteer at 0, A at 1.9 km, B 3 km past A, digester 2.9 km past B: A → digester is 5.9 km, but every
+    // leg of 0 → A → B → digester is ≤ 3 km; the round is 7.8 km [derived].
+    const input: CollectionRoundsInput = {
+      stops: [
+        { householdId: "A", ...onLine(1900), loadKg: 5 },
+        { householdId: "B", ...onLine(4900), loadKg: 5 },
+      ],
+      volunteers: [{ id: "v", ...onLine(0), bikeLoadKg: 40 }],
+      digesters: [{ id: "D", ...onLine(7800), roomKg: 100 }],
+    };
+    for (const plan of [planCollectionRounds(input), planCollectionRounds(input, heuristic)]) {
+      expect(plan.unplacedStops).toEqual([]);
+      expect(ids(plan)).toEqual([["A", "B"]]);
+      expect(plan.totalLengthM).toBeCloseTo(7800, 3);
+      checkPlan(input, plan);
+    }
+    expect(exactCollectionRounds(input)!.totalLengthM).toBeCloseTo(7800, 3);
+  });
+
+  it("when a stop is reached from the volunteer only through an earlier stop, then both are collected (7.8 km)", () => {
+    // Volunteer at 0, A at 2.9 km, B at 5.9 km (5.9 km from the volunteer), digester at 7.8 km [derived].
+    const input: CollectionRoundsInput = {
+      stops: [
+        { householdId: "B", ...onLine(5900), loadKg: 5 },
+        { householdId: "A", ...onLine(2900), loadKg: 5 },
+      ],
+      volunteers: [{ id: "v", ...onLine(0), bikeLoadKg: 40 }],
+      digesters: [{ id: "D", ...onLine(7800), roomKg: 100 }],
+    };
+    for (const plan of [planCollectionRounds(input), planCollectionRounds(input, heuristic)]) {
+      expect(plan.unplacedStops).toEqual([]);
+      expect(ids(plan)).toEqual([["A", "B"]]);
+      expect(plan.totalLengthM).toBeCloseTo(7800, 3);
+      checkPlan(input, plan);
+    }
+  });
+
+  it("when the middle stop of a chain has neither a volunteer nor a digester within 5 km, then the chain of 4 km legs is ridden (16 km)", () => {
+    // Volunteer at 0, stops at 4, 8 and 12 km, digester at 16 km: B is 8 km from both ends, A 12 km from the
+    // digester, C 12 km from the volunteer; the only round is 0 → A → B → C → 16 km [derived].
+    const input: CollectionRoundsInput = {
+      stops: [
+        { householdId: "C", ...onLine(12_000), loadKg: 3 },
+        { householdId: "A", ...onLine(4000), loadKg: 3 },
+        { householdId: "B", ...onLine(8000), loadKg: 3 },
+      ],
+      volunteers: [{ id: "v", ...onLine(0), bikeLoadKg: 40 }],
+      digesters: [{ id: "D", ...onLine(16_000), roomKg: 100 }],
+    };
+    for (const plan of [planCollectionRounds(input), planCollectionRounds(input, heuristic)]) {
+      expect(plan.unplacedStops).toEqual([]);
+      expect(ids(plan)).toEqual([["A", "B", "C"]]);
+      expect(plan.totalLengthM).toBeCloseTo(16_000, 3);
+      checkPlan(input, plan);
+    }
+  });
+
+  it("when a stop's only chain would overload the bike or the digester, then that stop is reported and the other collected", () => {
+    // As the first case with 6 kg at each stop: A needs B on its round (12 kg). A 10 kg bike, or a digester with
+    // room for 6 kg, serves only B (0 → 4.9 → 7.8 km); a 12 kg bike and 12 kg of room serve both [derived].
+    const stops = [
+      { householdId: "A", ...onLine(1900), loadKg: 6 },
+      { householdId: "B", ...onLine(4900), loadKg: 6 },
+    ];
+    const cases = [
+      { bikeLoadKg: 10, roomKg: 100 },
+      { bikeLoadKg: 40, roomKg: 6 },
+    ];
+    for (const { bikeLoadKg, roomKg } of cases) {
+      const input: CollectionRoundsInput = {
+        stops,
+        volunteers: [{ id: "v", ...onLine(0), bikeLoadKg }],
+        digesters: [{ id: "D", ...onLine(7800), roomKg }],
+      };
+      for (const plan of [planCollectionRounds(input), planCollectionRounds(input, heuristic)]) {
+        expect(ids(plan)).toEqual([["B"]]);
+        expect(plan.unplacedStops.map((u) => [u.householdId, u.reason])).toEqual([["A", "noDigesterWithinReach"]]);
+        expect(plan.totalLengthM).toBeCloseTo(7800, 3);
+        checkPlan(input, plan);
+      }
+    }
+    const roomy: CollectionRoundsInput = {
+      stops,
+      volunteers: [{ id: "v", ...onLine(0), bikeLoadKg: 12 }],
+      digesters: [{ id: "D", ...onLine(7800), roomKg: 12 }],
+    };
+    expect(ids(planCollectionRounds(roomy, heuristic))).toEqual([["A", "B"]]);
+  });
+
+  it("when a stop's only neighbour would be both the way in and the way out, then only that stop is reported", () => {
+    // Volunteer at 0, N at 300 m, A at 4 km, B at 8 km; "near" digester at −700 m, "far" at 16 km. B's only leg
+    // within 5 km is to A (N is 7.7 km, both digesters and the volunteer 8 km or more), so a round would have to
+    // pass A twice: B is out of reach. N and A share one round 0 → N → A → near = 0.3 + 3.7 + 4.7 km = 8.7 km,
+    // as short as 0 → A → N → near [derived].
+    const input: CollectionRoundsInput = {
+      stops: [
+        { householdId: "B", ...onLine(8000), loadKg: 2 },
+        { householdId: "N", ...onLine(300), loadKg: 2 },
+        { householdId: "A", ...onLine(4000), loadKg: 2 },
+      ],
+      volunteers: [{ id: "v", ...onLine(0), bikeLoadKg: 40 }],
+      digesters: [
+        { id: "near", ...onLine(-700), roomKg: 100 },
+        { id: "far", ...onLine(16_000), roomKg: 100 },
+      ],
+    };
+    for (const plan of [planCollectionRounds(input), planCollectionRounds(input, heuristic)]) {
+      expect(plan.unplacedStops.map((u) => [u.householdId, u.reason])).toEqual([["B", "noDigesterWithinReach"]]);
+      expect(plan.totalLengthM).toBeCloseTo(8700, 3);
+      checkPlan(input, plan);
+    }
+  });
+});
+
 /* ------------------------------------------------------------------ */
 /* Random instances                                                    */
 /* ------------------------------------------------------------------ */
@@ -331,4 +460,104 @@ describe("collection rounds: properties", () => {
     };
     expect(exactCollectionRounds(input)).toBeNull();
   });
+});
+
+/* ------------------------------------------------------------------ */
+/* Reachability over the leg graph, checked by brute force             */
+/* ------------------------------------------------------------------ */
+
+/**
+ * The stops some single round can serve, by trying every order of stops from every volunteer: each leg within
+ * its cap, the load within the bike and the end digester's room. Only for a handful of stops.
+ */
+function servableByBruteForce(input: CollectionRoundsInput, maxLegM: number, maxEndLegM: number): Set<string> {
+  const stops = input.stops.filter((s) => s.lat !== null && s.lng !== null) as {
+    householdId: string;
+    lat: number;
+    lng: number;
+    loadKg: number;
+  }[];
+  const served = new Set<string>();
+  const path: number[] = [];
+  const walk = (from: { lat: number; lng: number }, loadKg: number, bikeKg: number) => {
+    const last = stops[path.at(-1)!]!;
+    if (input.digesters.some((d) => d.roomKg >= loadKg && haversineM(last, d) <= maxEndLegM))
+      for (const i of path) served.add(stops[i]!.householdId);
+    stops.forEach((s, i) => {
+      if (path.includes(i) || loadKg + s.loadKg > bikeKg || haversineM(from, s) > maxLegM) return;
+      path.push(i);
+      walk(s, loadKg + s.loadKg, bikeKg);
+      path.pop();
+    });
+  };
+  for (const v of input.volunteers)
+    stops.forEach((s, i) => {
+      if (s.loadKg > v.bikeLoadKg || haversineM(v, s) > maxLegM) return;
+      path.push(i);
+      walk(s, s.loadKg, v.bikeLoadKg);
+      path.pop();
+    });
+  return served;
+}
+
+/**
+ * Instances spread evenly over 6 km × 6 km with caps of 1–3 km, so that many stops are reached only through
+ * others and some by no chain at all. Points come from a seeded uniform stream (fast-check's doubles favour the
+ * ends of their range, which would pile the points into the corners).
+ */
+const sparseInstance = (maxStops: number) =>
+  fc.integer({ min: 1, max: 2 ** 31 - 1 }).map((seed) => {
+    const r = seededRandom(seed, "sparse rounds");
+    const side = 6000;
+    const point = () => at(r.range(0, side), r.range(0, side));
+    const stops = Array.from({ length: r.int(1, maxStops) }, (_, i) => ({
+      householdId: `s${i}`,
+      ...point(),
+      loadKg: r.int(1, 10),
+    }));
+    const total = stops.reduce((s, x) => s + x.loadKg, 0);
+    const input: CollectionRoundsInput = {
+      stops,
+      volunteers: Array.from({ length: r.int(1, 2) }, (_, k) => ({
+        id: `v${k}`,
+        ...point(),
+        bikeLoadKg: r.int(8, 30),
+      })),
+      digesters: Array.from({ length: r.int(1, 2) }, (_, k) => ({
+        id: `d${k}`,
+        ...point(),
+        roomKg: Math.round(total * r.range(0.2, 1.5)),
+      })),
+    };
+    const capM = r.int(1000, 3000);
+    return { input, caps: { maxLegM: capM, maxEndLegM: capM } };
+  });
+
+describe("collection rounds: reachability over the leg graph (properties)", () => {
+  it("when a stop is reported out of reach, then brute force finds no single round of legs within the caps that serves it", () => {
+    let outOfReach = 0;
+    let throughOthers = 0;
+    fc.assert(
+      fc.property(sparseInstance(8), ({ input, caps }) => {
+        const plan = planCollectionRounds(input, { ...caps, improvementIterations: 10 });
+        checkPlan(input, plan, caps.maxEndLegM, caps.maxLegM);
+        const served = servableByBruteForce(input, caps.maxLegM, caps.maxEndLegM);
+        for (const u of plan.unplacedStops) {
+          const reported = u.reason === "noVolunteer" || u.reason === "noDigesterWithinReach";
+          expect(reported && served.has(u.householdId), `${u.householdId} reported ${u.reason}`).toBe(false);
+          if (reported) outOfReach++;
+        }
+        for (const r of plan.rounds)
+          for (const s of r.stops) {
+            const v = input.volunteers.find((x) => x.id === r.volunteerId)!;
+            const end = input.digesters.find((d) => d.id === r.endDigesterId)!;
+            if (haversineM(v, s) > caps.maxLegM || haversineM(s, end) > caps.maxEndLegM) throughOthers++;
+          }
+      }),
+      { numRuns: 200, seed: 20240603 },
+    );
+    // The instances exercise both sides: stops truly out of reach, and stops served only through others.
+    expect(outOfReach).toBeGreaterThan(20);
+    expect(throughOthers).toBeGreaterThan(20);
+  }, 120_000);
 });

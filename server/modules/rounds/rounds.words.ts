@@ -23,7 +23,7 @@ function unplacedReasonWords(stop: UnplacedStop): string {
       return `more buckets (${kgText(stop.loadKg)}) than any volunteer's cargo bike can carry (at most ${kgText(stop.largestBikeKg)}); split it over two days.`;
     case "noDigesterWithRoom":
       return stop.takenByOtherRounds
-        ? `the room left on this date at the digesters within ${km(stop.maxEndLegM)} is taken by the other rounds; plan it another day.`
+        ? `the other rounds of this date use the room left at the digesters within ${km(stop.maxEndLegM)}, or the stops it would be reached through; plan it another day.`
         : `no digester has room for ${kgText(stop.loadKg)} on this date (at most ${kgText(stop.largestRoomKg)}); plan it another day.`;
     case "noDigesterWithinReach":
       return `no digester with room can be reached from it, riding at most ${km(stop.maxLegM)} between stops and ${km(stop.maxEndLegM)} to the digester; plan it another day or ask the household to bring the buckets.`;

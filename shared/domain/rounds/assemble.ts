@@ -1,8 +1,9 @@
 /**
  * From the solver's index rounds to the plan the caller reads.
  */
+import { KG_EPS } from "./model";
 import { kg, metres } from "../../units";
-import { type Ended, KG_EPS, type Network, loadOf } from "./network";
+import { type Ended, type Network, loadOf } from "./network";
 import type { CollectionPlan, CollectionRound, RoundStop } from "./result";
 
 /**

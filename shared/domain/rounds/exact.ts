@@ -3,8 +3,8 @@
  * then branch and bound over partitions into rounds with shared rooms.
  */
 import { buildPlan } from "./assemble";
-import type { CollectionRoundsInput, CollectionRoundsOptions } from "./model";
-import { type Ended, KG_EPS, prepareNetwork, startLeg } from "./network";
+import { type CollectionRoundsInput, type CollectionRoundsOptions, KG_EPS } from "./model";
+import { type Ended, type Network, prepareNetwork, startLeg } from "./network";
 import type { CollectionPlan } from "./result";
 
 /** Largest number of plannable stops {@link exactCollectionRounds} accepts. */
@@ -24,7 +24,11 @@ export function exactCollectionRounds(
   input: CollectionRoundsInput,
   options: Pick<CollectionRoundsOptions, "maxEndLegM" | "maxLegM"> = {},
 ): CollectionPlan | null {
-  const net = prepareNetwork(input, options);
+  return exactOnNetwork(prepareNetwork(input, options));
+}
+
+/** {@link exactCollectionRounds} on a network already prepared. */
+export function exactOnNetwork(net: Network): CollectionPlan | null {
   const n = net.stopIdx.length;
   if (n > EXACT_ROUNDS_MAX_STOPS) return null;
   if (n === 0) return buildPlan(net, [], []);

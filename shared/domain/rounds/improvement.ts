@@ -3,9 +3,10 @@
  * swap, or-opt, 2-opt*, split; 2-opt inside rounds) and seeded ruin and
  * recreate with threshold accepting.
  */
+import { KG_EPS } from "./model";
 import { mulberry32 } from "../../random";
-import { insertLeftovers, twoOpt } from "./construction";
-import { type Ended, KG_EPS, type Network, fixedEndCost, loadOf, pathM, roomsLeft, startLeg } from "./network";
+import { breakInfeasible, insertLeftovers, twoOpt } from "./construction";
+import { type Ended, type Network, fixedEndCost, loadOf, pathM, roomsLeft, startLeg } from "./network";
 
 /**
  * Ruin-and-recreate iterations by default: 100 up to 60 stops, then fewer
@@ -268,10 +269,14 @@ export function ruinAndRecreate(
         .map((x) => x.a);
     }
     const gone = new Set(out);
-    const kept: Ended[] = cur
-      .map((r) => ({ seq: r.seq.filter((a) => !gone.has(a)), digester: r.digester }))
-      .filter((r) => r.seq.length > 0);
-    const order = [...new Set([...out, ...curDropped])]
+    // Taking stops out may leave a round that cannot be ridden (a chain with a link gone): mend it first.
+    const { ended: kept, aside } = breakInfeasible(
+      net,
+      cur
+        .map((r) => ({ seq: r.seq.filter((a) => !gone.has(a)), digester: r.digester }))
+        .filter((r) => r.seq.length > 0),
+    );
+    const order = [...new Set([...out, ...curDropped, ...aside])]
       .map((a) => ({ a, r: rng() }))
       .sort((x, y) => x.r - y.r)
       .map((x) => x.a);

@@ -8,7 +8,11 @@
  * volunteer who rides it. A volunteer may ride several rounds, each from
  * their start point (they go home in between; the way home is not counted).
  * Length = start → first stop → … → last stop → digester, straight-line
- * haversine metres (streets add a detour the model does not know).
+ * haversine metres (streets add a detour the model does not know). Every
+ * leg is capped (default 5 km): a stop far from every volunteer or digester
+ * may still be served through its neighbours, and only a stop that no
+ * chain of legs within the caps serves is reported out of reach
+ * (reachability.ts).
  *
  * Method (a heuristic, checked against {@link exactCollectionRounds} in the
  * tests):
@@ -32,8 +36,23 @@
  * Several λ are tried and the shortest plan kept. Measured against the
  * exact optimum on random 1–9-stop cases: see tests/shared/rounds.test.ts.
  */
-export * from "./model";
-export * from "./result";
+export {
+  type CollectionDigester,
+  type CollectionRoundsInput,
+  type CollectionRoundsOptions,
+  type CollectionStop,
+  type CollectionVolunteer,
+  DEFAULT_MAX_END_LEG_M,
+  DEFAULT_MAX_LEG_M,
+} from "./model";
+export type {
+  CollectionPlan,
+  CollectionPlanMessage,
+  CollectionRound,
+  RoundStop,
+  UnplacedStop,
+  UnplacedStopReason,
+} from "./result";
 export { planCollectionRounds } from "./plan";
 export { defaultImprovementIterations } from "./improvement";
 export { EXACT_ROUNDS_MAX_STOPS, exactCollectionRounds } from "./exact";

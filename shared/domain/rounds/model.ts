@@ -47,6 +47,11 @@ export interface CollectionRoundsOptions {
    * (1 + noise·(u − 0.5)), u from a seeded generator. Default none.
    */
   readonly perturbation?: { readonly seed: number; readonly noise: number };
+  /**
+   * Up to how many plannable stops the exact solver plans the date instead
+   * of the heuristic; 0 always uses the heuristic. Default 0.
+   */
+  readonly exactMaxStops?: number;
   /** Ruin-and-recreate iterations after construction; default {@link defaultImprovementIterations}. */
   readonly improvementIterations?: number;
   /**
@@ -77,3 +82,6 @@ export const DEFAULT_MAX_LEG_M = 5000;
  * better moved to another day than ridden across town].
  */
 export const DEFAULT_MAX_END_LEG_M = 5000;
+
+/** Slack on kg comparisons, so that rounding never refuses a load that fits exactly. */
+export const KG_EPS = 1e-9;

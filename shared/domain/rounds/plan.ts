@@ -4,10 +4,11 @@
  */
 import { mulberry32 } from "../../random";
 import { buildPlan } from "./assemble";
-import { assignEnds, insertLeftovers, savings, twoOpt } from "./construction";
+import { assignEnds, breakInfeasible, insertLeftovers, savings, twoOpt } from "./construction";
+import { exactOnNetwork } from "./exact";
 import { defaultImprovementIterations, endAwareSearch, ruinAndRecreate } from "./improvement";
 import type { CollectionRoundsInput, CollectionRoundsOptions } from "./model";
-import { type Ended, fixedEndCost, prepareNetwork, routeCost } from "./network";
+import { type Ended, constructionCost, fixedEndCost, prepareNetwork } from "./network";
 import type { CollectionPlan } from "./result";
 
 /**
@@ -22,13 +23,17 @@ export function planCollectionRounds(
 ): CollectionPlan {
   const net = prepareNetwork(input, options);
   if (net.stopIdx.length === 0) return buildPlan(net, [], []);
+  if (net.stopIdx.length <= (options.exactMaxStops ?? 0)) {
+    const exact = exactOnNetwork(net);
+    if (exact) return exact;
+  }
   const shapes = options.savingsShapes ?? [1, 0.6, 1.4];
   const rng = options.perturbation ? mulberry32(options.perturbation.seed) : null;
   const noise = rng && options.perturbation ? () => options.perturbation!.noise * (rng() - 0.5) : null;
   let best: { ended: Ended[]; dropped: number[]; length: number } | null = null;
   for (const lambda of shapes) {
     let routes = savings(net, lambda, noise);
-    routes = routes.map((r) => twoOpt(net, r, (s) => routeCost(net, s)));
+    routes = routes.map((r) => twoOpt(net, r, (s) => constructionCost(net, s)));
     const leftovers: number[] = [];
     const assigned = assignEnds(net, routes, leftovers);
     const dropped = insertLeftovers(
@@ -52,5 +57,7 @@ export function planCollectionRounds(
   }
   const iterations = options.improvementIterations ?? defaultImprovementIterations(net.stopIdx.length);
   const improved = ruinAndRecreate(net, best!.ended, best!.dropped, iterations, options.perturbation?.seed ?? 1);
-  return buildPlan(net, improved.ended, improved.dropped);
+  // Every step keeps rounds rideable; this only guards the plan handed out (a stop it cannot put back is reported).
+  const { ended, aside } = breakInfeasible(net, improved.ended);
+  return buildPlan(net, ended, [...improved.dropped, ...insertLeftovers(net, ended, aside)]);
 }

@@ -11,7 +11,12 @@ import type { CollectionPlan, CollectionRound, RoundStop } from "./result";
  * nearest volunteer whose bike carries it, legs are measured, stops left
  * over are reported as without room, and the load per digester is summed.
  */
-export function buildPlan(net: Network, ended: Ended[], dropped: number[]): CollectionPlan {
+export function buildPlan(
+  net: Network,
+  ended: Ended[],
+  dropped: number[],
+  method: CollectionPlan["method"],
+): CollectionPlan {
   const n = net.stopIdx.length;
   const E = net.rooms.length;
   const { volunteers, digesters, stops } = net.input;
@@ -53,6 +58,7 @@ export function buildPlan(net: Network, ended: Ended[], dropped: number[]): Coll
   const messages = [...net.messages];
   if (unplaced.length > 0) messages.push({ code: "stopsUnplaced", count: unplaced.length });
   return {
+    method,
     rounds,
     unplacedStops: unplaced,
     totalLengthM: metres(rounds.reduce((s, r) => s + r.lengthM, 0)),

@@ -14,18 +14,22 @@
  * chain of legs within the caps serves is reported out of reach
  * (reachability.ts).
  *
- * Method (a heuristic, checked against {@link exactCollectionRounds} in the
- * tests):
+ * Method. A date with at most DEFAULT_EXACT_MAX_STOPS plannable stops gets
+ * the exact optimum (exact.ts: fewest stops left out, then shortest). A
+ * larger one gets a heuristic, checked against the exact solver in the
+ * tests:
  * 1. Savings construction with capacity [Clarke & Wright 1964, "Scheduling
  *    of vehicles from a central depot to a number of delivery points",
  *    Operations Research 12(4):568–581, memory], generalised to open routes
  *    with many origins and ends: joining a route ending at i to one starting
  *    at j saves end(i) + start(j) − λ·d(i, j), where start/end are the
- *    nearest volunteer start / digester; λ is the shape parameter of the
- *    parametric savings [Yellow 1970, Oper. Res. Q. 21:281, memory]. A join
- *    is made only if the true cost falls and the load fits some bike.
- *    Each round is then ordered by 2-opt [Croes 1958, "A method for solving
- *    traveling-salesman problems", Operations Research 6(6):791–812, memory].
+ *    nearest volunteer start / digester (a large penalty when none is
+ *    within the cap, so stops reached only through a neighbour are joined
+ *    to it first); λ is the shape parameter of the parametric savings
+ *    [Yellow 1970, Oper. Res. Q. 21:281, memory]. A join is made only if
+ *    the true cost falls and the load fits some bike. Each round is then
+ *    ordered by 2-opt [Croes 1958, "A method for solving traveling-salesman
+ *    problems", Operations Research 6(6):791–812, memory].
  * 2. Ends: rounds are given digesters by regret [Martello & Toth 1981,
  *    memory] so that no digester receives more than its room; stops no
  *    digester can take are re-inserted where room is left, or reported.
@@ -35,6 +39,12 @@
  * 4. Each round gets the nearest volunteer whose bike fits.
  * Several λ are tried and the shortest plan kept. Measured against the
  * exact optimum on random 1–9-stop cases: see tests/shared/rounds.test.ts.
+ *
+ * Files: model.ts (input, options, caps), network.ts (legs and shared
+ * costs), reachability.ts (which stops any round can serve), construction.ts
+ * and improvement.ts (the heuristic), exact.ts (small dates), lower-bound.ts
+ * (how far a plan may be from the optimum), assemble.ts and result.ts (the
+ * plan returned: rounds, and codes with figures for what was left out).
  */
 export {
   type CollectionDigester,
@@ -53,7 +63,7 @@ export type {
   UnplacedStop,
   UnplacedStopReason,
 } from "./result";
-export { planCollectionRounds } from "./plan";
+export { DEFAULT_EXACT_MAX_STOPS, planCollectionRounds } from "./plan";
 export { defaultImprovementIterations } from "./improvement";
-export { EXACT_ROUNDS_MAX_STOPS, exactCollectionRounds } from "./exact";
+export { EXACT_ROUNDS_MAX_STEPS, EXACT_ROUNDS_MAX_STOPS, exactCollectionRounds } from "./exact";
 export { collectionRoundsLowerBoundM } from "./lower-bound";

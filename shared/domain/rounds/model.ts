@@ -49,7 +49,8 @@ export interface CollectionRoundsOptions {
   readonly perturbation?: { readonly seed: number; readonly noise: number };
   /**
    * Up to how many plannable stops the exact solver plans the date instead
-   * of the heuristic; 0 always uses the heuristic. Default 0.
+   * of the heuristic; 0 always uses the heuristic. Default
+   * DEFAULT_EXACT_MAX_STOPS (plan.ts).
    */
   readonly exactMaxStops?: number;
   /** Ruin-and-recreate iterations after construction; default {@link defaultImprovementIterations}. */

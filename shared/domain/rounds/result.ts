@@ -86,6 +86,8 @@ export type CollectionPlanMessage =
 
 /** The rounds for one date, what could not be planned, and the load delivered to each digester. */
 export interface CollectionPlan {
+  /** "exact": the best plan (fewest stops left out, then shortest); "heuristic": a good one, see index.ts. */
+  readonly method: "exact" | "heuristic";
   readonly rounds: readonly CollectionRound[];
   readonly unplacedStops: readonly UnplacedStop[];
   readonly totalLengthM: Metres;

@@ -241,6 +241,10 @@ export function breakInfeasible(net: Network, ended: readonly Ended[]): { ended:
   const kept: Ended[] = [];
   const aside: number[] = [];
   for (const r of ended) {
+    if (r.digester < 0) {
+      aside.push(...r.seq);
+      continue;
+    }
     if (fixedEndCost(net, r.seq, r.digester) < Infinity) {
       kept.push(r);
       continue;

@@ -269,19 +269,22 @@ export function ruinAndRecreate(
         .map((x) => x.a);
     }
     const gone = new Set(out);
-    // Taking stops out may leave a round that cannot be ridden (a chain with a link gone): mend it first.
-    const { ended: kept, aside } = breakInfeasible(
-      net,
-      cur
-        .map((r) => ({ seq: r.seq.filter((a) => !gone.has(a)), digester: r.digester }))
-        .filter((r) => r.seq.length > 0),
-    );
-    const order = [...new Set([...out, ...curDropped, ...aside])]
+    const kept: Ended[] = cur
+      .map((r) => ({ seq: r.seq.filter((a) => !gone.has(a)), digester: r.digester }))
+      .filter((r) => r.seq.length > 0);
+    const order = [...new Set([...out, ...curDropped])]
       .map((a) => ({ a, r: rng() }))
       .sort((x, y) => x.r - y.r)
       .map((x) => x.a);
-    const stillDropped = insertLeftovers(net, kept, order);
-    const searched = endAwareSearch(net, kept);
+    let stillDropped = insertLeftovers(net, kept, order);
+    let searched = endAwareSearch(net, kept);
+    // Taking stops out may leave a round that cannot be ridden (a link of its chain gone); putting stops back and
+    // the search usually mend it (any mending move is an improvement). What is left is cut, and its stops put back.
+    const mended = breakInfeasible(net, searched);
+    if (mended.aside.length > 0) {
+      stillDropped = [...stillDropped, ...insertLeftovers(net, mended.ended, mended.aside)];
+      searched = endAwareSearch(net, mended.ended);
+    }
     const len = total(searched);
     // Threshold accepting [Dueck & Scheuer 1990, J. Comput. Phys. 90:161, memory]: a slightly longer plan may be kept for a while.
     const threshold = 0.02 * bestLen * (1 - it / iterations);

@@ -21,7 +21,13 @@ import {
   solveAssignment,
 } from "../shared/domain/assignment";
 import { destinationPoint } from "../shared/domain/geo";
-import { type CollectionRoundsInput, collectionRoundsLowerBoundM, planCollectionRounds } from "../shared/domain/rounds";
+import {
+  type CollectionRoundsInput,
+  DEFAULT_EXACT_MAX_STOPS,
+  collectionRoundsLowerBoundM,
+  planCollectionRounds,
+} from "../shared/domain/rounds";
+import { mulberry32 as seededStream } from "../shared/random";
 
 /** Small fast seeded generator (mulberry32), so every run sees the same instances. */
 function mulberry32(seed: number): () => number {
@@ -86,11 +92,13 @@ function assignmentInstance(c: AssignmentCase): AssignmentInput {
   return { households, digesters };
 }
 
-/** 60 stops of 1–4 buckets (2.5 kg each [judgement]), 3 cargo bikes of 40 kg, 6 digesters with room for 1.5 × the load. */
-function roundsInstance(seed: number): CollectionRoundsInput {
-  const r = mulberry32(seed);
-  const side = 4000;
-  const stops = Array.from({ length: 60 }, (_, i) => ({
+/**
+ * `count` stops (60 by default) of 1–4 buckets (2.5 kg each [judgement]) over a square of `side` metres, 3 cargo
+ * bikes of 40 kg, 6 digesters with room for `roomRatio` (1.5) × the load.
+ */
+function roundsInstance(seed: number, count = 60, side = 4000, roomRatio = 1.5): CollectionRoundsInput {
+  const r = seededStream(seed);
+  const stops = Array.from({ length: count }, (_, i) => ({
     householdId: `s${i}`,
     ...at(r() * side, r() * side),
     loadKg: 2.5 * (1 + Math.floor(r() * 4)),
@@ -104,7 +112,7 @@ function roundsInstance(seed: number): CollectionRoundsInput {
   const digesters = Array.from({ length: 6 }, (_, e) => ({
     id: `d${e}`,
     ...at(r() * side, r() * side),
-    roomKg: Math.round((total * 1.5 * (0.6 + 0.8 * r())) / 6),
+    roomKg: Math.round((total * roomRatio * (0.6 + 0.8 * r())) / 6),
   }));
   return { stops, volunteers, digesters };
 }
@@ -285,6 +293,44 @@ async function main() {
   const maxLoad = Math.max(...ours.value.rounds.map((r) => r.loadKg));
   const roomOk = ours.value.digesterLoads.every((d) => d.loadKg <= d.roomKg + 1e-9);
   console.log(`Heaviest round ${maxLoad} kg (bike 40 kg); digester rooms respected: ${roomOk ? "yes" : "NO"}.`);
+
+  // Small dates: the product plans up to DEFAULT_EXACT_MAX_STOPS stops exactly; the heuristic alone for comparison.
+  const small = Array.from({ length: 10 }, (_, k) => roundsInstance(200 + k, DEFAULT_EXACT_MAX_STOPS, 4000, 0.9));
+  const exactRuns = small.map((input) => timed(() => planCollectionRounds(input)));
+  const heuristicRuns = small.map((input) => timed(() => planCollectionRounds(input, { exactMaxStops: 0 })));
+  const sum = (xs: readonly number[]) => xs.reduce((s, x) => s + x, 0);
+  const longer = heuristicRuns.map((h, k) => h.value.totalLengthM / exactRuns[k]!.value.totalLengthM - 1);
+  console.log(
+    `\nSmall dates: 10 × ${DEFAULT_EXACT_MAX_STOPS} stops, room for 0.9 × the load (methods: ${[...new Set(exactRuns.map((x) => x.value.method))].join(", ")})`,
+  );
+  console.table([
+    {
+      plan: "product (exact)",
+      secondsTotal: seconds(sum(exactRuns.map((x) => x.ms))),
+      worstMs: Math.max(...exactRuns.map((x) => x.ms)).toFixed(1),
+      lengthKm: km(sum(exactRuns.map((x) => x.value.totalLengthM))),
+      unplaced: sum(exactRuns.map((x) => x.value.unplacedStops.length)),
+    },
+    {
+      plan: "heuristic alone",
+      secondsTotal: seconds(sum(heuristicRuns.map((x) => x.ms))),
+      worstMs: Math.max(...heuristicRuns.map((x) => x.ms)).toFixed(1),
+      lengthKm: km(sum(heuristicRuns.map((x) => x.value.totalLengthM))),
+      unplaced: sum(heuristicRuns.map((x) => x.value.unplacedStops.length)),
+    },
+  ]);
+  console.log(
+    `Heuristic above the exact plan: worst ${pct(Math.max(...longer))} (same stops left out: ${heuristicRuns.every((h, k) => h.value.unplacedStops.length === exactRuns[k]!.value.unplacedStops.length) ? "yes" : "no"}).`,
+  );
+
+  // Sparse: stops reached only through others (60 stops over 12 km with the default 5 km caps).
+  const sparse = roundsInstance(9, 60, 12_000, 1.5);
+  const sparsePlan = timed(() => planCollectionRounds(sparse));
+  const reasons = new Map<string, number>();
+  for (const u of sparsePlan.value.unplacedStops) reasons.set(u.reason, (reasons.get(u.reason) ?? 0) + 1);
+  console.log(
+    `\nSparse: 60 stops over 12 km × 12 km: ${seconds(sparsePlan.ms)} s, ${sparsePlan.value.rounds.length} rounds, ${km(sparsePlan.value.totalLengthM)} km, unplaced ${sparsePlan.value.unplacedStops.length} (${[...reasons].map(([r, c]) => `${r} ${c}`).join(", ") || "none"}).`,
+  );
 }
 
 await main();

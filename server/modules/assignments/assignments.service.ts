@@ -7,7 +7,6 @@
 import { Transaction } from "sequelize";
 import {
   type AssignmentDigester,
-  type AssignmentResult,
   type AssignmentHousehold,
   type AssignmentInput,
   nearestWithRoomBaseline,
@@ -20,15 +19,18 @@ import type {
   Proposal,
   ProposalAssignment,
   ProposalDigester,
+  ProposalNote,
   ProposalRequest,
   ProposalUnplaced,
 } from "../../../shared/schemas/assignments";
+import { proposalNoteWords, suggestionWords, unplacedWords } from "../../../shared/words/assignment-board";
 import { sequelize } from "../../db/sequelize";
 import { AppError, badRequest, conflict, notFound } from "../../lib/app-error";
 import { daysBetween, localDate } from "../../lib/clock";
 import { type DigesterToday, loadDigestersToday } from "../digesters/digester-state.service";
 import { enqueueEmail } from "../outbox/outbox.service";
 import { newDigesterEmail } from "./assignments.emails";
+import { solverNotes } from "./assignments.notes";
 import { solveOffThread } from "./solver-pool";
 import * as repo from "./assignments.repository";
 
@@ -59,34 +61,6 @@ export function digesterWeeklyRoomKg(state: DigesterToday, excluded: boolean): n
   }).weeklyKgScraps;
 }
 
-const round1 = (x: number) => Math.round(x * 10) / 10;
-
-/**
- * The solver's own messages as a coordinator reads them: those this service already says in its
- * own words (contradictory pins, digesters without room, the unplaced summary) are left out, and
- * ids become names.
- */
-function coordinatorMessages(
-  result: AssignmentResult,
-  householdName: (id: string) => string,
-  digesterName: (id: string) => string,
-): string[] {
-  const contradictions = new Set(result.contradictions.map((c) => c.message));
-  const out: string[] = [];
-  for (const m of result.messages) {
-    if (contradictions.has(m)) continue;
-    if (/could not be placed; see the list/.test(m)) continue;
-    if (/^Digester \S+ has no room this week/.test(m) || m.startsWith("No digester is taking scraps")) continue;
-    out.push(
-      m
-        .replace(/\bHousehold (\d+)\b/g, (_, id: string) => householdName(id))
-        .replace(/\b[Dd]igester (\d+)\b/g, (_, id: string) => digesterName(id))
-        .replace(/\bpinned to (\d+)\b/g, (_, id: string) => `pinned to ${digesterName(id)}`),
-    );
-  }
-  return out;
-}
-
 /** A proposal: nothing is written. */
 export async function propose(request: ProposalRequest, now = new Date()): Promise<Proposal> {
   const today = localDate(now);
@@ -99,15 +73,15 @@ export async function propose(request: ProposalRequest, now = new Date()): Promi
     }),
     loadDigestersToday(null, { now }),
   ]);
-  const messages: string[] = [];
+  // What is worth knowing, as codes; the coordinator's words are made from them at the end.
+  const notes: ProposalNote[] = [];
   const householdById = new Map(households.map((h) => [h.id, h]));
   const stateById = new Map(states.map((s) => [s.digester.id, s]));
   const digesterName = (id: number | string) => stateById.get(Number(id))?.digester.name ?? `digester ${id}`;
   const householdName = (id: number | string) => householdById.get(Number(id))?.name ?? `household ${id}`;
 
   const excluded = new Set(request.excludeDigesterIds ?? []);
-  for (const id of excluded)
-    if (!stateById.has(id)) messages.push(`Digester ${id} to exclude does not exist; ignored.`);
+  for (const id of excluded) if (!stateById.has(id)) notes.push({ code: "excludedDigesterUnknown", digesterId: id });
 
   // Pins: those stored, then those in the request (which win). Two request pins for one household contradict.
   const pins = new Map<number, number>();
@@ -117,14 +91,17 @@ export async function propose(request: ProposalRequest, now = new Date()): Promi
   const requested = new Map<number, number>();
   for (const pin of request.pins ?? []) {
     if (!householdById.has(pin.householdId)) {
-      messages.push(`Pin ignored: household ${pin.householdId} does not exist.`);
+      notes.push({ code: "pinHouseholdUnknown", householdId: pin.householdId });
       continue;
     }
     const earlier = requested.get(pin.householdId);
     if (earlier !== undefined && earlier !== pin.digesterId) {
-      messages.push(
-        `Contradictory pins: ${householdName(pin.householdId)} is pinned to both ${digesterName(earlier)} and ${digesterName(pin.digesterId)}; the first pin is kept.`,
-      );
+      notes.push({
+        code: "pinsContradictory",
+        household: { id: pin.householdId, name: householdName(pin.householdId) },
+        keptDigester: { id: earlier, name: digesterName(earlier) },
+        droppedDigester: { id: pin.digesterId, name: digesterName(pin.digesterId) },
+      });
       continue;
     }
     requested.set(pin.householdId, pin.digesterId);
@@ -160,27 +137,19 @@ export async function propose(request: ProposalRequest, now = new Date()): Promi
   const { result, solveMs } = await solveOffThread(input, { timeLimitS: 10 });
   const baseline = nearestWithRoomBaseline(input);
 
-  for (const c of result.contradictions) {
-    const who = householdName(c.householdId);
-    const where = digesterName(c.digesterId);
-    messages.push(
-      c.kind === "unknownDigester"
-        ? `Contradictory pin: ${who} is pinned to a digester that does not exist (${c.digesterId}); it is placed like any other household.`
-        : c.kind === "digesterUnavailable"
-          ? `Contradictory pin: ${who} is pinned to ${where}, which is resting, offline or excluded; it is placed like any other household.`
-          : `Contradictory pin: the households pinned to ${where} bring more than its weekly room; ${who} is placed like any other household.`,
-    );
-  }
-  for (const m of coordinatorMessages(result, householdName, digesterName)) messages.push(m);
+  notes.push(
+    ...solverNotes(result, {
+      household: householdName,
+      digester: (id) => stateById.get(id)?.digester.name ?? null,
+    }),
+  );
 
   const noLocation = result.unplaced.filter((u) => u.reason === "noLocation");
   if (noLocation.length > 0) {
-    messages.push(
-      `${noLocation.length} household${noLocation.length === 1 ? " has" : "s have"} no location on the map (${noLocation
-        .slice(0, 5)
-        .map((u) => householdName(u.householdId))
-        .join(", ")}${noLocation.length > 5 ? ", …" : ""}); add one so they can be assigned.`,
-    );
+    notes.push({
+      code: "householdsWithoutLocation",
+      households: noLocation.map((u) => ({ id: Number(u.householdId), name: householdName(u.householdId) })),
+    });
   }
   const available = modelDigesters.filter((d) => d.available);
   const outOfReach = result.unplaced.filter((u) => u.reason === "noDigesterWithinReach");
@@ -192,22 +161,20 @@ export async function propose(request: ProposalRequest, now = new Date()): Promi
       const nearest = Math.min(...available.map((d) => haversineM({ lat: h.lat!, lng: h.lng! }, d)));
       needed = Math.max(needed, nearest);
     }
-    messages.push(
-      `The maximum walk of ${Math.round(request.maxWalkM)} m cannot be met: ${outOfReach.length} household${outOfReach.length === 1 ? " has" : "s have"} no open digester that close. A limit of ${Math.ceil(needed)} m would reach them all.`,
-    );
+    notes.push({
+      code: "walkingLimitUnreachable",
+      walkingLimitM: request.maxWalkM,
+      householdCount: outOfReach.length,
+      neededM: needed,
+    });
   }
-  if (available.length === 0)
-    messages.push("No digester is taking scraps this week (all resting, offline or excluded).");
+  if (available.length === 0) notes.push({ code: "noDigesterTakingScraps" });
   const noRoom = states.filter((s) => !s.closed && !excluded.has(s.digester.id) && digesterWeeklyRoomKg(s, false) <= 0);
   if (noRoom.length > 0) {
-    messages.push(
-      `${noRoom
-        .slice(0, 5)
-        .map((s) => s.digester.name)
-        .join(
-          ", ",
-        )}${noRoom.length > 5 ? ` and ${noRoom.length - 5} more` : ""} ${noRoom.length === 1 ? "has" : "have"} no room this week (no temperature reading in 3 days, an acid warning, or a week already full), so ${noRoom.length === 1 ? "it takes" : "they take"} no households.`,
-    );
+    notes.push({
+      code: "digestersWithoutRoom",
+      digesters: noRoom.map((s) => ({ id: s.digester.id, name: s.digester.name })),
+    });
   }
 
   const assignments: ProposalAssignment[] = result.assignments.map((a) => {
@@ -243,29 +210,23 @@ export async function propose(request: ProposalRequest, now = new Date()): Promi
     };
   });
   const unplaced: ProposalUnplaced[] = result.unplaced.map((u) => {
-    const name = householdName(u.householdId);
-    const suggestion =
-      u.suggestion.kind === "anotherDay"
-        ? `Bring the scraps to ${digesterName(u.suggestion.digesterId)} (${Math.round(u.suggestion.distanceM)} m) on another day, or compost at home.`
-        : "Compost at home until there is room.";
-    const message =
-      u.reason === "noLocation"
-        ? `${name} has no location on the map.`
-        : u.reason === "invalidAmount"
-          ? `${name} has no valid weekly amount.`
-          : u.reason === "noDigesterWithinReach"
-            ? request.maxWalkM != null
-              ? `No open digester within ${Math.round(request.maxWalkM)} m of ${name}.`
-              : `No digester is open for ${name}.`
-            : `Every digester within reach of ${name} is full this week (${round1(u.weeklyKg)} kg to place).`;
-    return {
+    const coded = {
       householdId: Number(u.householdId),
-      householdName: name,
+      householdName: householdName(u.householdId),
       weeklyKg: u.weeklyKg,
       reason: u.reason,
-      message,
-      suggestion,
+      walkingLimitM: u.walkingLimitM,
+      suggestedAction:
+        u.suggestion.kind === "anotherDay"
+          ? {
+              code: "anotherDay" as const,
+              digesterId: Number(u.suggestion.digesterId),
+              digesterName: digesterName(u.suggestion.digesterId),
+              distanceM: u.suggestion.distanceM,
+            }
+          : { code: "compostAtHome" as const },
     };
+    return { ...coded, message: unplacedWords(coded), suggestion: suggestionWords(coded) };
   });
   let currentDistanceM = 0;
   for (const h of households) {
@@ -277,7 +238,8 @@ export async function propose(request: ProposalRequest, now = new Date()): Promi
     assignments,
     digesters,
     unplaced,
-    messages,
+    messages: notes.map(proposalNoteWords),
+    notes,
     totalDistanceM: result.totalDistanceM,
     baselineDistanceM: baseline.totalDistanceM,
     currentDistanceM,

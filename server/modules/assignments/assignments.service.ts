@@ -29,7 +29,7 @@ import { AppError, badRequest, conflict, notFound } from "../../lib/app-error";
 import { daysBetween, localDate } from "../../lib/clock";
 import { type DigesterToday, loadDigestersToday } from "../digesters/digester-state.service";
 import { enqueueEmail } from "../outbox/outbox.service";
-import { newDigesterEmail } from "./assignments.emails";
+import { type MoveReason, newDigesterEmail } from "./assignments.emails";
 import { solverNotes } from "./assignments.notes";
 import { solveOffThread } from "./solver-pool";
 import * as repo from "./assignments.repository";
@@ -37,8 +37,6 @@ import * as repo from "./assignments.repository";
 /** Weeks of history below which the declared amount is used. */
 export const MIN_HISTORY_WEEKS = 2;
 const HISTORY_WEEKS = 8;
-const DEFAULT_WHY =
-  "the coordinator re-balanced households across the digesters so that each stays within its safe feed rate for the week while everyone walks as little as possible.";
 
 /** Expected kg a week: recent fed/accepted kg over the weeks since the first of them (2…8), else declared. */
 export function householdWeeklyKg(h: repo.AssignableHousehold, today: string): number {
@@ -260,9 +258,9 @@ interface Move {
 }
 
 /**
- * Why a household moves, in the resident's words: its digester is closed, or over its safe weekly
- * feed, or the new one is closer; else the general reason. `loadsBefore` is each digester's
- * expected weekly kg before the change.
+ * Why a household moves, as a code (the e-mail words it): its digester is closed, or over its
+ * safe weekly feed, or the new one is closer; else the general reason. `loadsBefore` is each
+ * digester's expected weekly kg before the change.
  */
 function moveReason(
   m: Move,
@@ -271,33 +269,44 @@ function moveReason(
     householdById: Map<number, repo.AssignableHousehold>;
     loadsBefore: Map<number, number>;
   },
-): string {
+): MoveReason {
   const from = m.fromDigesterId === null ? undefined : ctx.stateById.get(m.fromDigesterId);
   const to = ctx.stateById.get(m.toDigesterId);
-  if (!to) return DEFAULT_WHY;
-  if (!from) return `your household had no digester yet, and ${to.digester.name} has room for your scraps.`;
+  if (!to) return { code: "rebalanced" };
+  if (!from) return { code: "firstDigester", toName: to.digester.name };
   if (from.closed) {
-    return `${from.digester.name} is ${from.digester.status} for now${from.digester.statusReason ? ` (${from.digester.statusReason})` : ""}, so its households bring their scraps to other digesters.`;
+    return {
+      code: "digesterClosed",
+      fromName: from.digester.name,
+      status: from.digester.status,
+      statusReason: from.digester.statusReason || null,
+    };
   }
   const room = digesterWeeklyRoomKg(from, false);
   const load = ctx.loadsBefore.get(from.digester.id) ?? 0;
   if (load > room + 1e-6) {
-    return `${from.digester.name} was expecting about ${Math.round(load)} kg of scraps this week but can safely digest about ${Math.round(room)} kg, and ${to.digester.name} has room.`;
+    return {
+      code: "digesterOverFull",
+      fromName: from.digester.name,
+      expectedKg: load,
+      safeKg: room,
+      toName: to.digester.name,
+    };
   }
   const h = ctx.householdById.get(m.householdId);
   if (h && isValidLatLng(h.lat, h.lng)) {
     const home = { lat: h.lat!, lng: h.lng! };
     const closer = haversineM(home, from.digester) - haversineM(home, to.digester);
     if (closer >= 10)
-      return `${to.digester.name} is about ${Math.round(closer)} m closer to your home than ${from.digester.name}.`;
+      return { code: "closer", toName: to.digester.name, fromName: from.digester.name, closerM: closer };
   }
-  return DEFAULT_WHY;
+  return { code: "rebalanced" };
 }
 
 async function notifyMoves(
   transaction: Transaction,
   moves: Move[],
-  why: string | ((m: Move) => string),
+  why: MoveReason | ((m: Move) => MoveReason),
   now: Date,
 ): Promise<number> {
   if (moves.length === 0) return 0;
@@ -328,7 +337,7 @@ async function notifyMoves(
           siteDescription: to.siteDescription,
           distanceM,
           previousDigesterName: m.fromDigesterId === null ? null : (stateById.get(m.fromDigesterId)?.name ?? null),
-          why: typeof why === "string" ? why : why(m),
+          why: typeof why === "function" ? why(m) : why,
         }),
       );
       queued++;
@@ -392,7 +401,7 @@ export async function apply(request: ApplyRequest, now = new Date()): Promise<Ap
         );
     }
     const why = request.reason
-      ? request.reason
+      ? ({ code: "coordinatorReason", text: request.reason } as const)
       : (m: Move) => moveReason(m, { stateById, householdById: byId, loadsBefore });
     const emailsQueued = await notifyMoves(transaction, moves, why, now);
     return { applied: request.changes.length, emailsQueued, version: await repo.assignmentVersion(transaction) };
@@ -431,7 +440,7 @@ export async function setPin(
       await notifyMoves(
         transaction,
         [{ householdId, fromDigesterId: h.assignedDigesterId, toDigesterId: digesterId }],
-        DEFAULT_WHY,
+        { code: "rebalanced" },
         now,
       );
     }

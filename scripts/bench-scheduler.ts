@@ -22,17 +22,9 @@ import {
 } from "../shared/domain/assignment";
 import { destinationPoint } from "../shared/domain/geo";
 import { type CollectionRoundsInput, collectionRoundsLowerBoundM, planCollectionRounds } from "../shared/domain/rounds";
-
-/** Small fast seeded generator (mulberry32), so every run sees the same instances. */
-function mulberry32(seed: number): () => number {
-  let a = seed | 0;
-  return () => {
-    a = (a + 0x6d2b79f5) | 0;
-    let t = Math.imul(a ^ (a >>> 15), 1 | a);
-    t = (t + Math.imul(t ^ (t >>> 7), 61 | t)) ^ t;
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
+// The project's one seeded generator, so every run sees the same instances (the same streams as
+// the copy this script had before, so the instances did not change).
+import { mulberry32 } from "../shared/random";
 
 const CENTRE = { lat: 52.09, lng: 5.12 }; // an invented town; only the latitude matters for the metres
 const at = (eastM: number, northM: number) => destinationPoint(destinationPoint(CENTRE, 90, eastM), 0, northM);

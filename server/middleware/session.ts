@@ -161,7 +161,7 @@ export interface SessionControl {
   info(): SessionInfo | undefined;
   /** The session id, to spare the current session when ending a person's others. Never log it. */
   id(): string | undefined;
-  /** The CSRF token of this session (created on first use). */
+  /** The CSRF token: the session's (created on first use), or a visitor's signed cookie pair that stores nothing. */
   csrfToken(): string;
   /** Writes the session row now, moving its idle end ("stay signed in"). */
   keepAlive(): void;
@@ -197,7 +197,7 @@ function control(req: Request, res: Response, next: NextFunction): SessionContro
       }),
     info: () => (req.user && req.session?.signedInAt ? info(req.session.signedInAt) : undefined),
     id: () => (req.session ? req.sessionID : undefined),
-    csrfToken: () => csrfTokenFor(req),
+    csrfToken: () => csrfTokenFor(req, res),
     keepAlive: () => {
       if (req.session) req.session.keptAliveAt = Date.now();
     },

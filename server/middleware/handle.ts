@@ -10,14 +10,9 @@ import type { z } from "zod";
 import { AppError } from "../lib/app-error";
 import { zodFields } from "../lib/zod-fields";
 
-export interface Caller {
-  id: number;
-  email: string;
-  name: string;
-  roles: string[];
-  stewardOf: number[];
-  householdId: number | null;
-}
+import type { Caller } from "../lib/caller";
+
+export type { Caller } from "../lib/caller";
 
 type Schemas = { body?: z.ZodType; query?: z.ZodType; params?: z.ZodType };
 type Out<S, K extends keyof S> = S[K] extends z.ZodType ? z.output<S[K]> : undefined;

@@ -8,12 +8,11 @@ import {
 import type { HandFeedingResult } from "../../../shared/schemas/steward";
 import { sequelize } from "../../db/sequelize";
 import { badRequest, notFound } from "../../lib/app-error";
-import { addDays, localDate } from "../../lib/clock";
+import { addDays, localDate, startOfLocalDay } from "../../lib/clock";
 import type { Caller } from "../../middleware/handle";
 import { assertStewardOf } from "../../middleware/require-role";
 import { findDigesters } from "../digesters/digester-state.repository";
 import { loadDigestersToday } from "../digesters/digester-state.service";
-import { startOfLocalDay } from "../readings/local-day";
 import { stewardBudget } from "../steward/steward-view";
 import { reserveToday, suggestedWaterLitres, withLedgerGuard } from "./feed-capacity";
 import * as repo from "./feedings.repository";

@@ -10,12 +10,11 @@ import {
 } from "../../../shared/schemas/readings";
 import { sequelize } from "../../db/sequelize";
 import { AppError, badRequest, notFound } from "../../lib/app-error";
-import { addDays, localDate } from "../../lib/clock";
+import { addDays, localDate, startOfLocalDay } from "../../lib/clock";
 import type { Caller } from "../../middleware/handle";
 import { assertStewardOf } from "../../middleware/require-role";
 import { findDigesters } from "../digesters/digester-state.repository";
 import * as repo from "./readings.repository";
-import { startOfLocalDay } from "./local-day";
 import { parseSensorCsv } from "./sensor-csv";
 
 const DEFAULT_RANGE_DAYS = 60;

@@ -1,0 +1,9 @@
+/** The signed-in person as every service sees them (reloaded from the database on each request). */
+export interface Caller {
+  id: number;
+  email: string;
+  name: string;
+  roles: string[];
+  stewardOf: number[];
+  householdId: number | null;
+}

@@ -7,3 +7,9 @@ export interface Caller {
   stewardOf: number[];
   householdId: number | null;
 }
+
+/** Who is asking and from where, for the security log. */
+export interface RequestContext {
+  requestId: string;
+  ip: string;
+}

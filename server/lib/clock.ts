@@ -6,17 +6,7 @@ export function localDate(at: Date, timeZone = env().TIMEZONE): string {
   return new Intl.DateTimeFormat("en-CA", { timeZone, year: "numeric", month: "2-digit", day: "2-digit" }).format(at);
 }
 
-/** The ISO date `days` after `isoDate` (negative for before). */
-export function addDays(isoDate: string, days: number): string {
-  const d = new Date(`${isoDate}T00:00:00Z`);
-  d.setUTCDate(d.getUTCDate() + days);
-  return d.toISOString().slice(0, 10);
-}
-
-/** Whole days from `from` to `to` (ISO dates). */
-export function daysBetween(from: string, to: string): number {
-  return Math.round((Date.parse(`${to}T00:00:00Z`) - Date.parse(`${from}T00:00:00Z`)) / 86_400_000);
-}
+export { addDays, daysBetween } from "../../shared/domain/calendar";
 
 /** Milliseconds the time zone is ahead of UTC at an instant. */
 function zoneOffsetMs(at: number, timeZone: string): number {

@@ -1,86 +1,12 @@
+/**
+ * `password_resets` and `rate_limit_hits` (see sign-in-throttle.ts) are the auth module's; the
+ * people, their passwords and sessions belong to the people module (its index.ts).
+ */
 import { QueryTypes, type Transaction } from "sequelize";
 import { sequelize } from "../../db/sequelize";
-import type { Caller } from "../../middleware/handle";
-import type { Role } from "../../../shared/schemas/auth";
 
-interface CallerRow {
-  id: number;
-  email: string;
-  name: string;
-  roles: Role[];
-  household_id: number | null;
-  steward_of: number[] | null;
+interface ResetStatusRow {
   status: "invited" | "active" | "disabled";
-  password_hash: string | null;
-}
-
-const callerColumns = `
-  p.id, p.email, p.name, p.roles, p.household_id, p.status, p.password_hash,
-  (SELECT array_agg(ds.digester_id ORDER BY ds.digester_id) FROM digester_stewards ds WHERE ds.person_id = p.id) AS steward_of`;
-
-function toCaller(row: CallerRow): Caller {
-  return {
-    id: row.id,
-    email: row.email,
-    name: row.name,
-    roles: row.roles,
-    stewardOf: row.steward_of ?? [],
-    householdId: row.household_id,
-  };
-}
-
-export interface SignInRecord {
-  caller: Caller;
-  status: CallerRow["status"];
-  passwordHash: string | null;
-}
-
-async function findOne(where: string, bind: unknown[], transaction?: Transaction): Promise<SignInRecord | null> {
-  const rows = await sequelize().query<CallerRow>(`SELECT ${callerColumns} FROM people p WHERE ${where}`, {
-    bind,
-    type: QueryTypes.SELECT,
-    transaction,
-  });
-  const row = rows[0];
-  return row ? { caller: toCaller(row), status: row.status, passwordHash: row.password_hash } : null;
-}
-
-/** The account behind an e-mail (case-insensitive), with its hash, for checking a password. */
-export function findByEmail(email: string, transaction?: Transaction) {
-  return findOne("p.email = $1", [email], transaction);
-}
-
-export function findById(id: number, transaction?: Transaction) {
-  return findOne("p.id = $1", [id], transaction);
-}
-
-/** The signed-in person for a session, or null when the account is gone or not active. */
-export async function findActiveCaller(id: number): Promise<Caller | null> {
-  const record = await findOne("p.id = $1 AND p.status = 'active'", [id]);
-  return record?.caller ?? null;
-}
-
-export async function setPassword(transaction: Transaction, personId: number, passwordHash: string): Promise<void> {
-  await sequelize().query(
-    `UPDATE people SET password_hash = $2, password_changed_at = now(), updated_at = now() WHERE id = $1`,
-    { bind: [personId, passwordHash], transaction },
-  );
-}
-
-/**
- * Ends every session of a person at once (all but `exceptSessionId` when given), by deleting the
- * rows: the next request with such a cookie finds no session and is anonymous.
- */
-export async function deleteSessionsOf(
-  personId: number,
-  exceptSessionId?: string,
-  transaction?: Transaction,
-): Promise<number> {
-  const rows = await sequelize().query(
-    `DELETE FROM sessions WHERE (sess -> 'passport' ->> 'user') = $1 AND sid <> $2 RETURNING sid`,
-    { bind: [String(personId), exceptSessionId ?? ""], type: QueryTypes.SELECT, transaction },
-  );
-  return rows.length;
 }
 
 export async function countRecentResets(personId: number, since: Date, transaction?: Transaction): Promise<number> {
@@ -108,7 +34,7 @@ export interface ResetRow {
   personId: number;
   expiresAt: Date;
   usedAt: Date | null;
-  personStatus: CallerRow["status"];
+  personStatus: ResetStatusRow["status"];
 }
 
 /** The reset row for a token hash, locked for the rest of the transaction so it is used once. */
@@ -118,7 +44,7 @@ export async function findResetForUpdate(transaction: Transaction, tokenHash: st
     person_id: number;
     expires_at: Date;
     used_at: Date | null;
-    status: CallerRow["status"];
+    status: ResetStatusRow["status"];
   }>(
     `SELECT r.id, r.person_id, r.expires_at, r.used_at, p.status
        FROM password_resets r JOIN people p ON p.id = r.person_id

@@ -1,4 +1,11 @@
-import { QueryTypes, type Transaction } from "sequelize";
+/**
+ * What today's state of a digester is computed from: the digesters, their recent readings and
+ * their daily loads (feedings, accepted and pending drop-offs), in three statements for any
+ * number of digesters. Every table here belongs to the digester's day.
+ */
+import { Op, QueryTypes, type Transaction } from "sequelize";
+import { models } from "../../db/models";
+import type { DigesterModel } from "../../db/models/digester.model";
 import { sequelize } from "../../db/sequelize";
 
 export interface DigesterRow {
@@ -41,28 +48,53 @@ export interface DailyLoadRow {
   freshKg: number;
 }
 
-const digesterColumns = `
-  id, name, site_description AS "siteDescription", status, status_reason AS "statusReason", lat, lng,
-  working_volume_m3::float8 AS "workingVolumeM3", drum_diameter_m::float8 AS "drumDiameterM",
-  drum_mass_kg::float8 AS "drumMassKg", added_mass_kg::float8 AS "addedMassKg",
-  burner_litres_per_hour::float8 AS "burnerLitresPerHour", heating, insulation,
-  started_on::text AS "startedOn", gas_first_burned_on::text AS "gasFirstBurnedOn",
-  olr_ref_kg_vs_per_m3_day::float8 AS "olrRefKgVsPerM3Day", olr_override_reason AS "olrOverrideReason",
-  target_ts_percent::float8 AS "targetTsPercent", bucket_kg_per_litre::float8 AS "bucketKgPerLitre"`;
+function toDigesterRow(row: DigesterModel): DigesterRow {
+  const d = row;
+  return {
+    id: d.id,
+    name: d.name,
+    siteDescription: d.siteDescription,
+    status: d.status,
+    statusReason: d.statusReason,
+    lat: d.lat,
+    lng: d.lng,
+    workingVolumeM3: d.workingVolumeM3,
+    drumDiameterM: d.drumDiameterM,
+    drumMassKg: d.drumMassKg,
+    addedMassKg: d.addedMassKg,
+    burnerLitresPerHour: d.burnerLitresPerHour,
+    heating: d.heating,
+    insulation: d.insulation,
+    startedOn: d.startedOn,
+    gasFirstBurnedOn: d.gasFirstBurnedOn,
+    olrRefKgVsPerM3Day: d.olrRefKgVsPerM3Day,
+    olrOverrideReason: d.olrOverrideReason,
+    targetTsPercent: d.targetTsPercent,
+    bucketKgPerLitre: d.bucketKgPerLitre,
+  };
+}
 
-// NUMERIC columns are cast to float8 in SQL: the driver returns NUMERIC as strings.
-
-/** Digesters (all, or the given ids), optionally locked FOR UPDATE inside a transaction. */
-export function findDigesters(ids: number[] | null, options: { transaction?: Transaction; lock?: boolean } = {}) {
-  const where = ids ? "WHERE id = ANY($ids::int[])" : "";
-  return sequelize().query<DigesterRow>(
-    `SELECT ${digesterColumns} FROM digesters ${where} ORDER BY name, id ${options.lock ? "FOR UPDATE" : ""}`,
-    { type: QueryTypes.SELECT, bind: ids ? { ids } : undefined, transaction: options.transaction },
-  );
+/** Digesters (all, or the given ids) by name, optionally locked FOR UPDATE inside a transaction. */
+export async function findDigesters(
+  ids: number[] | null,
+  options: { transaction?: Transaction; lock?: boolean } = {},
+): Promise<DigesterRow[]> {
+  const rows = await models().Digester.findAll({
+    where: ids ? { id: { [Op.in]: ids } } : {},
+    order: [
+      ["name", "ASC"],
+      ["id", "ASC"],
+    ],
+    lock: options.lock && options.transaction ? options.transaction.LOCK.UPDATE : undefined,
+    transaction: options.transaction,
+  });
+  return rows.map(toDigesterRow);
 }
 
 /** Readings that bear on today's budget: the last 7 days (temperature, pH, VFA/TA). */
 export function findRecentReadings(ids: number[], since: Date, transaction?: Transaction) {
+  // SQL kept for a hot read (every budget: GET /api/digesters, the steward's day, each drop-off):
+  // hundreds of rows a request, which the model would build into instances one by one.
   return sequelize().query<RecentReadingRow>(
     `SELECT digester_id AS "digesterId", taken_at AS "takenAt", temperature_c::float8 AS "temperatureC", ph::float8 AS ph,
             vfa_ta_ratio::float8 AS "vfaTaRatio"
@@ -79,6 +111,7 @@ export function findRecentReadings(ids: number[], since: Date, transaction?: Tra
  * but not yet fed (they are promised room) as "committed", and drop-offs waiting as "pending".
  */
 export function findDailyLoads(ids: number[], fromDay: string, toDay: string, transaction?: Transaction) {
+  // SQL: an aggregate over a UNION of feedings and drop-offs.
   return sequelize().query<DailyLoadRow>(
     `SELECT digester_id AS "digesterId", day::text AS day, kind, sum(kg_vs)::float8 AS "kgVs", sum(fresh_kg)::float8 AS "freshKg" FROM (
         SELECT digester_id, fed_on AS day, 'committed' AS kind, kg_vs, fresh_kg FROM feedings

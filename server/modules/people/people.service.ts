@@ -13,8 +13,9 @@ import type {
   SetStewards,
   UpdatePerson,
 } from "../../../shared/schemas/people";
-import * as authRepo from "../auth/auth.repository";
-import { assertAcceptablePassword, type RequestContext } from "../auth/auth.service";
+import { assertAcceptablePassword } from "../../lib/password";
+import type { RequestContext } from "../../lib/caller";
+import { findStewards, lockDigester, removeStewardships, replaceStewards } from "../digesters";
 import { enqueueEmail } from "../outbox/outbox.service";
 import { invitationEmail } from "../outbox/templates";
 import * as repo from "./people.repository";
@@ -39,9 +40,6 @@ export async function invite(
   const { token, hash } = newOneTimeToken();
   const expiresAt = new Date(now.getTime() + INVITATION_TTL_MS);
   const personId = await sequelize().transaction(async (t) => {
-    if (input.householdId != null && !(await repo.householdExists(t, input.householdId))) {
-      throw badRequest("Please check the household.", { householdId: "There is no household with this id." });
-    }
     const existing = await repo.lockPerson(t, { email: input.email });
     if (existing && existing.status !== "invited") {
       throw conflict("This person already has an account.", {
@@ -136,7 +134,7 @@ export async function acceptInvitation(
     const personId = invitation.personId!;
     await repo.activateInvitedPerson(t, personId, input.name, passwordHash);
     await repo.markInvitationUsed(t, invitation.id);
-    const record = await authRepo.findById(personId, t);
+    const record = await repo.findById(personId, t);
     return record!.caller;
   });
   logSecurityEvent("invitation_accepted", { ...ctx, userId: caller.id });
@@ -167,14 +165,11 @@ export async function updatePerson(
         status: "They become active when they accept the invitation.",
       });
     }
-    if (changes.householdId != null && !(await repo.householdExists(t, changes.householdId))) {
-      throw badRequest("Please check the household.", { householdId: "There is no household with this id." });
-    }
     // An invited person stays invited; only accepting the invitation activates them.
     const status = changes.status === "active" && person.status === "invited" ? undefined : changes.status;
     await repo.updatePerson(t, id, { ...changes, status });
-    if (changes.roles && !changes.roles.includes("steward")) await repo.removeStewardships(t, id);
-    if (status === "disabled") await authRepo.deleteSessionsOf(id, undefined, t);
+    if (changes.roles && !changes.roles.includes("steward")) await removeStewardships(t, id);
+    if (status === "disabled") await repo.deleteSessionsOf(id, undefined, t);
     return { before: person, row: (await repo.getPersonRow(id, t))! };
   });
   if (changes.status === "disabled" && before.status !== "disabled") {
@@ -194,7 +189,7 @@ export async function updatePerson(
 /** Replaces the stewards of a digester; each must hold the steward role and not be disabled. */
 export async function setStewards(digesterId: number, input: SetStewards): Promise<DigesterStewards> {
   return sequelize().transaction(async (t) => {
-    if (!(await repo.lockDigester(t, digesterId))) throw notFound("This digester");
+    if (!(await lockDigester(t, digesterId))) throw notFound("This digester");
     const people = await repo.findPeopleByIds(t, input.personIds);
     const byId = new Map(people.map((p) => [p.id, p]));
     const problems: string[] = [];
@@ -206,7 +201,7 @@ export async function setStewards(digesterId: number, input: SetStewards): Promi
     }
     if (problems.length > 0)
       throw badRequest("Some of these people cannot be stewards.", { personIds: problems.join("; ") });
-    await repo.replaceStewards(t, digesterId, input.personIds);
-    return { digesterId, stewards: await repo.stewardsOf(t, digesterId) };
+    await replaceStewards(t, digesterId, input.personIds);
+    return { digesterId, stewards: await findStewards(digesterId, { transaction: t, everyone: true }) };
   });
 }

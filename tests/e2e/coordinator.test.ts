@@ -6,8 +6,7 @@
 import { mkdirSync } from "node:fs";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import type { Page } from "playwright-core";
-import { DEMO_PASSWORD } from "../../server/db/seeders/demo";
-import { DEMO_SIGN_IN_EMAILS } from "../../server/db/seeders/demo-data";
+import { DEMO_PASSWORD, DEMO_SIGN_IN_EMAILS } from "../../server/db/seeders/demo";
 import { deliverDueEmails } from "../../server/modules/outbox/outbox.service";
 import { axeViolations, startHarness, type BrowserHarness } from "../helpers/browser";
 import { sql } from "../helpers/db";
@@ -125,7 +124,7 @@ describe("collection rounds", () => {
     await signIn(page, DEMO_SIGN_IN_EMAILS.coordinator, "/rounds");
     await page.getByRole("heading", { level: 1, name: "Collection rounds" }).waitFor();
     expect(await axeViolations(page)).toEqual([]);
-    // The demo seeds collection requests for the coming days (server/db/seeders/demo-data.ts).
+    // The demo seeds collection requests for the coming days (server/db/seeders/demo/collections.ts).
     expect(day).toBeDefined();
     await page.getByLabel("Day to plan").fill(day!.d);
     await page.getByRole("button", { name: "Plan rounds" }).click();

@@ -7,8 +7,7 @@
 import { mkdirSync } from "node:fs";
 import { afterAll, beforeAll, describe, expect, it, onTestFinished } from "vitest";
 import type { Page } from "playwright-core";
-import { DEMO_PASSWORD } from "../../server/db/seeders/demo";
-import { DEMO_SIGN_IN_EMAILS } from "../../server/db/seeders/demo-data";
+import { DEMO_PASSWORD, DEMO_SIGN_IN_EMAILS } from "../../server/db/seeders/demo";
 import { axeViolations, startHarness, type BrowserHarness } from "../helpers/browser";
 import { createPerson, sql, TEST_PASSWORD } from "../helpers/db";
 

@@ -8,8 +8,7 @@
 import { mkdirSync } from "node:fs";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import type { Page } from "playwright-core";
-import { DEMO_PASSWORD } from "../../server/db/seeders/demo";
-import { DEMO_SIGN_IN_EMAILS } from "../../server/db/seeders/demo-data";
+import { DEMO_PASSWORD, DEMO_SIGN_IN_EMAILS } from "../../server/db/seeders/demo";
 import { AxeBuilder } from "@axe-core/playwright";
 import { axeViolations, startHarness, type BrowserHarness } from "../helpers/browser";
 import { sql } from "../helpers/db";

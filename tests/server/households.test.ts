@@ -237,8 +237,8 @@ describe("who sees which households", () => {
 
 describe("the street list", () => {
   it("when the basemap is read, then every named street of it is listed once, each with a point on the street", async () => {
-    // The street names of the demo basemap are the LARKMOOR_STREETS of server/db/seeders/demo-data.ts.
-    const { LARKMOOR_STREETS } = await import("../../server/db/seeders/demo-data");
+    // The street names of the demo basemap are the LARKMOOR_STREETS of server/db/seeders/demo/place.ts.
+    const { LARKMOOR_STREETS } = await import("../../server/db/seeders/demo/place");
     const streets = await listStreets();
     expect(streets.map((s) => s.name).sort()).toEqual([...new Set(LARKMOOR_STREETS.map((s) => s.name))].sort());
     const res = await (await signedInClient(app, { roles: ["resident"] })).get("/api/streets");

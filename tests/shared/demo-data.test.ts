@@ -1,13 +1,9 @@
 import { readFileSync, statSync } from "node:fs";
 import { describe, expect, it } from "vitest";
-import {
-  buildDemoNeighbourhood,
-  buildLarkmoorBasemap,
-  DEMO_SIGN_IN_EMAILS,
-  type BasemapFeatureCollection,
-  type DemoDropOff,
-  type DemoNeighbourhood,
-} from "../../server/db/seeders/demo-data";
+import { buildDemoNeighbourhood } from "../../server/db/seeders/demo/neighbourhood";
+import { DEMO_SIGN_IN_EMAILS } from "../../server/db/seeders/demo/people";
+import { buildLarkmoorBasemap, type BasemapFeatureCollection } from "../../server/db/seeders/demo/place";
+import type { DemoDropOff, DemoNeighbourhood } from "../../server/db/seeders/demo/types";
 
 const BASEMAP_URL = new URL("../../public/basemap/larkmoor.geojson", import.meta.url);
 const basemapFile = JSON.parse(readFileSync(BASEMAP_URL, "utf8")) as BasemapFeatureCollection;

@@ -3,9 +3,7 @@
  * their daily loads (feedings, accepted and pending drop-offs), in three statements for any
  * number of digesters. Every table here belongs to the digester's day.
  */
-import { Op, QueryTypes, type Transaction } from "sequelize";
-import { models } from "../../db/models";
-import type { DigesterModel } from "../../db/models/digester.model";
+import { QueryTypes, type Transaction } from "sequelize";
 import { sequelize } from "../../db/sequelize";
 
 export interface DigesterRow {
@@ -21,8 +19,8 @@ export interface DigesterRow {
   drumMassKg: number | null;
   addedMassKg: number;
   burnerLitresPerHour: number;
-  heating: string;
-  insulation: string;
+  heating: "none" | "solar" | "electric" | "waste-heat";
+  insulation: "none" | "partial" | "full";
   startedOn: string;
   gasFirstBurnedOn: string | null;
   olrRefKgVsPerM3Day: number;
@@ -48,47 +46,27 @@ export interface DailyLoadRow {
   freshKg: number;
 }
 
-function toDigesterRow(row: DigesterModel): DigesterRow {
-  const d = row;
-  return {
-    id: d.id,
-    name: d.name,
-    siteDescription: d.siteDescription,
-    status: d.status,
-    statusReason: d.statusReason,
-    lat: d.lat,
-    lng: d.lng,
-    workingVolumeM3: d.workingVolumeM3,
-    drumDiameterM: d.drumDiameterM,
-    drumMassKg: d.drumMassKg,
-    addedMassKg: d.addedMassKg,
-    burnerLitresPerHour: d.burnerLitresPerHour,
-    heating: d.heating,
-    insulation: d.insulation,
-    startedOn: d.startedOn,
-    gasFirstBurnedOn: d.gasFirstBurnedOn,
-    olrRefKgVsPerM3Day: d.olrRefKgVsPerM3Day,
-    olrOverrideReason: d.olrOverrideReason,
-    targetTsPercent: d.targetTsPercent,
-    bucketKgPerLitre: d.bucketKgPerLitre,
-  };
-}
+const digesterColumns = `
+  id, name, site_description AS "siteDescription", status, status_reason AS "statusReason", lat, lng,
+  working_volume_m3::float8 AS "workingVolumeM3", drum_diameter_m::float8 AS "drumDiameterM",
+  drum_mass_kg::float8 AS "drumMassKg", added_mass_kg::float8 AS "addedMassKg",
+  burner_litres_per_hour::float8 AS "burnerLitresPerHour", heating, insulation,
+  started_on::text AS "startedOn", gas_first_burned_on::text AS "gasFirstBurnedOn",
+  olr_ref_kg_vs_per_m3_day::float8 AS "olrRefKgVsPerM3Day", olr_override_reason AS "olrOverrideReason",
+  target_ts_percent::float8 AS "targetTsPercent", bucket_kg_per_litre::float8 AS "bucketKgPerLitre"`;
 
 /** Digesters (all, or the given ids) by name, optionally locked FOR UPDATE inside a transaction. */
-export async function findDigesters(
+export function findDigesters(
   ids: number[] | null,
   options: { transaction?: Transaction; lock?: boolean } = {},
 ): Promise<DigesterRow[]> {
-  const rows = await models().Digester.findAll({
-    where: ids ? { id: { [Op.in]: ids } } : {},
-    order: [
-      ["name", "ASC"],
-      ["id", "ASC"],
-    ],
-    lock: options.lock && options.transaction ? options.transaction.LOCK.UPDATE : undefined,
-    transaction: options.transaction,
-  });
-  return rows.map(toDigesterRow);
+  // SQL kept for a hot read (GET /api/digesters and every budget) and the row lock: through the
+  // Digester model GET /api/digesters ran at about four fifths of the rate in `npm run bench:api`.
+  const where = ids ? "WHERE id = ANY($ids::int[])" : "";
+  return sequelize().query<DigesterRow>(
+    `SELECT ${digesterColumns} FROM digesters ${where} ORDER BY name, id ${options.lock ? "FOR UPDATE" : ""}`,
+    { type: QueryTypes.SELECT, bind: ids ? { ids } : undefined, transaction: options.transaction },
+  );
 }
 
 /** Readings that bear on today's budget: the last 7 days (temperature, pH, VFA/TA). */

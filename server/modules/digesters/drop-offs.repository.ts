@@ -7,58 +7,47 @@ import { QueryTypes, type Transaction, fn } from "sequelize";
 import type { DropOffMix } from "../../../shared/domain";
 import type { DropOff, DropOffStatus, TurnedAwayReason } from "../../../shared/schemas/drop-offs";
 import { models } from "../../db/models";
-import type { DropOffModel } from "../../db/models/drop-off.model";
 import { sequelize } from "../../db/sequelize";
 
 /** Most rows one household list returns (years of weekly buckets). */
 export const HOUSEHOLD_LIST_LIMIT = 2_000;
 
-function toDropOff(row: DropOffModel): DropOff {
-  const d = row;
-  return {
-    id: d.id,
-    householdId: d.householdId,
-    digesterId: d.digesterId,
-    digesterName: d.digester!.name,
-    loggedBy: d.person?.name ?? null,
-    forDate: d.forDate,
-    bucketCount: d.bucketCount,
-    bucketLitres: d.bucketLitres,
-    weightKg: d.weightKg,
-    massSource: d.massSource,
-    freshKg: d.freshKg,
-    kgVs: d.kgVs,
-    mix: d.mix,
-    citrusPercent: d.citrusPercent,
-    noRefuseConfirmed: d.noRefuseConfirmed,
-    status: d.status,
-    turnedAwayReason: d.turnedAwayReason,
-    note: d.note,
-    fedOn: d.feeding?.fedOn ?? null,
-    createdAt: new Date(d.createdAt).toISOString(),
-  };
+interface DropOffRecord extends Omit<DropOff, "createdAt"> {
+  createdAt: Date;
 }
+
+/** NUMERIC columns are cast to float8 in named SQL (the driver returns NUMERIC as strings); dates as text. */
+const householdColumns = `
+  d.id, d.household_id AS "householdId", d.digester_id AS "digesterId", g.name AS "digesterName",
+  p.name AS "loggedBy", d.for_date::text AS "forDate", d.bucket_count AS "bucketCount",
+  d.bucket_litres::float8 AS "bucketLitres", d.weight_kg::float8 AS "weightKg", d.mass_source AS "massSource",
+  d.fresh_kg::float8 AS "freshKg", d.kg_vs::float8 AS "kgVs", d.mix, d.citrus_percent::float8 AS "citrusPercent",
+  d.no_refuse_confirmed AS "noRefuseConfirmed", d.status, d.turned_away_reason AS "turnedAwayReason", d.note,
+  f.fed_on::text AS "fedOn", d.created_at AS "createdAt"`;
 
 /** A household's drop-offs, newest first (or just one of them when `id` is given), with digester, logger and feeding day. */
 export async function findHouseholdDropOffs(
   householdId: number,
   options: { id?: number; transaction?: Transaction } = {},
 ): Promise<DropOff[]> {
-  const rows = await models().DropOff.findAll({
-    where: options.id === undefined ? { householdId } : { householdId, id: options.id },
-    include: [
-      { association: "digester", attributes: ["name"] },
-      { association: "person", attributes: ["name"] },
-      { association: "feeding", attributes: ["fedOn"] },
-    ],
-    order: [
-      ["forDate", "DESC"],
-      ["id", "DESC"],
-    ],
-    limit: HOUSEHOLD_LIST_LIMIT,
-    transaction: options.transaction,
-  });
-  return rows.map(toDropOff);
+  // SQL kept for a hot read (a resident's list, up to 2,000 rows): the DropOff model with its three
+  // includes served GET /api/drop-offs?mine=true at about a third of the rate in `npm run bench:api`.
+  const rows = await sequelize().query<DropOffRecord>(
+    `SELECT ${householdColumns}
+       FROM drop_offs d
+       JOIN digesters g ON g.id = d.digester_id
+       LEFT JOIN people p ON p.id = d.person_id
+       LEFT JOIN feedings f ON f.drop_off_id = d.id
+      WHERE d.household_id = $1 ${options.id === undefined ? "" : "AND d.id = $2"}
+      ORDER BY d.for_date DESC, d.id DESC
+      LIMIT ${HOUSEHOLD_LIST_LIMIT}`,
+    {
+      bind: options.id === undefined ? [householdId] : [householdId, options.id],
+      type: QueryTypes.SELECT,
+      transaction: options.transaction,
+    },
+  );
+  return rows.map((r) => ({ ...r, createdAt: new Date(r.createdAt).toISOString() }));
 }
 
 export interface NewDropOff {

@@ -65,3 +65,32 @@ export async function useResets(transaction: Transaction, personId: number): Pro
     transaction,
   });
 }
+
+/** Stores a reset request for an address as typed (known or not): the same statement either way. */
+export async function insertResetRequest(email: string): Promise<void> {
+  await sequelize().query(`INSERT INTO password_reset_requests (email) VALUES ($1)`, { bind: [email] });
+}
+
+/**
+ * Takes the oldest waiting reset request out of the queue inside `transaction` (deleted on
+ * commit). SKIP LOCKED: several app processes may work the queue at once, each on other rows.
+ */
+export async function takeResetRequest(transaction: Transaction): Promise<{ id: number; email: string } | null> {
+  const rows = await sequelize().query<{ id: string; email: string }>(
+    `DELETE FROM password_reset_requests
+      WHERE id = (SELECT id FROM password_reset_requests ORDER BY id LIMIT 1 FOR UPDATE SKIP LOCKED)
+      RETURNING id, email`,
+    { type: QueryTypes.SELECT, transaction },
+  );
+  const row = rows[0];
+  return row ? { id: Number(row.id), email: row.email } : null;
+}
+
+/** Serialises reset links per person for the rest of the transaction, so the hourly cap holds across processes. */
+export async function lockResetsOf(transaction: Transaction, personId: number): Promise<void> {
+  await sequelize().query(`SELECT pg_advisory_xact_lock(hashtext('hearthloop.reset'), $1)`, {
+    bind: [personId],
+    type: QueryTypes.SELECT,
+    transaction,
+  });
+}

@@ -1,6 +1,7 @@
 import { z } from "zod";
 import { FEED_BINDINGS } from "../domain/feed-budget";
 import { FeedWarningSchema } from "./calc";
+import { isoDate } from "./common";
 
 export const DigesterStatusSchema = z.enum(["active", "resting", "offline"]);
 export type DigesterStatus = z.infer<typeof DigesterStatusSchema>;
@@ -67,8 +68,6 @@ function profileNumber(label: string, min: number, max: number, unit: string) {
   return z.number({ error: message }).min(min, { error: message }).max(max, { error: message });
 }
 
-const profileDate = (label: string) => z.iso.date({ error: `${label}: give the day as YYYY-MM-DD.` });
-
 /** The settings a steward keeps for their digester. */
 export const DigesterProfileSchema = z.object({
   id: z.number().int(),
@@ -121,8 +120,8 @@ export const UpdateDigesterProfileSchema = z
     insulation: z
       .enum(DIGESTER_INSULATIONS, { error: `Insulation must be one of ${DIGESTER_INSULATIONS.join(", ")}.` })
       .optional(),
-    startedOn: profileDate("Start date").optional(),
-    gasFirstBurnedOn: profileDate("Gas first burned").nullable().optional(),
+    startedOn: isoDate("Start date").optional(),
+    gasFirstBurnedOn: isoDate("Gas first burned").nullable().optional(),
     olrRefKgVsPerM3Day: profileNumber("Reference loading rate", 0.1, PROFILE_OLR_REF_MAX, "kg VS/m³/day").optional(),
     olrOverrideReason: z
       .string({ error: "The reason must be text." })

@@ -5,6 +5,7 @@
  */
 import { z } from "zod";
 import { DROP_OFF_MIXES } from "../domain/drop-offs";
+import { IsoDateSchema } from "./common";
 
 export const FeedMixSchema = z.enum(DROP_OFF_MIXES, {
   error: `Choose what went in: one of ${DROP_OFF_MIXES.join(", ")}.`,
@@ -63,7 +64,7 @@ export const CreateFeedingSchema = z
       .transform((v) => Math.round(v * 100) / 100)
       .default(0),
     waterLitres: WaterLitresSchema.optional(),
-    fedOn: z.iso.date({ error: "Give the day as YYYY-MM-DD." }).optional(),
+    fedOn: IsoDateSchema.optional(),
     note,
     override: BudgetOverrideSchema.optional(),
   })
@@ -74,8 +75,8 @@ export type CreateFeedingParsed = z.output<typeof CreateFeedingSchema>;
 /** `GET /api/digesters/:id/feedings?from=&to=` (and the CSV export): days, default the last 60. */
 export const FeedingRangeQuerySchema = z
   .object({
-    from: z.iso.date({ error: "Give the day as YYYY-MM-DD." }).optional(),
-    to: z.iso.date({ error: "Give the day as YYYY-MM-DD." }).optional(),
+    from: IsoDateSchema.optional(),
+    to: IsoDateSchema.optional(),
   })
   .strict();
 export type FeedingRangeQuery = z.output<typeof FeedingRangeQuerySchema>;

@@ -55,9 +55,35 @@ export const apiNotFound: RequestHandler = (req, _res, next) => {
   next(new AppError(404, "not_found", `There is no ${req.method} ${req.path}.`));
 };
 
+/**
+ * SQLSTATEs of a connection the database ended or lost (PostgreSQL 15 manual, Appendix A):
+ * 57P01 admin shutdown ("terminating connection due to administrator command", sent to every
+ * backend by a fast shutdown or pg_terminate_backend), 57P02 crash shutdown, 57P03 cannot
+ * connect now, and class 08, connection exception.
+ */
+const connectionLostStates = new Set(["57P01", "57P02", "57P03", "08000", "08001", "08003", "08004", "08006", "08007"]);
+
+/** pg's own words when the socket closes under a query ("Connection terminated unexpectedly"). */
+const connectionLostMessage = /^Connection terminated\b|is not queryable/;
+
+type MaybeDbError = { name?: string; code?: string; message?: string; parent?: MaybeDbError } | null;
+
+/** Whether the error means the database is down or went away, rather than refused this query. */
+export function isDatabaseDown(err: MaybeDbError): boolean {
+  const cause = err?.parent ?? err;
+  if (databaseDown.has(err?.name ?? "") || databaseDown.has(cause?.name ?? "")) return true;
+  const code = cause?.code ?? err?.code;
+  if (code === "ECONNREFUSED" || code === "ECONNRESET" || (code && connectionLostStates.has(code))) return true;
+  return connectionLostMessage.test(cause?.message ?? "");
+}
+
 /** Database outages become 503 with Retry-After; anything else unforeseen is logged and a 500. */
-function unexpected(err: { name?: string; code?: string; parent?: { name?: string } } | null, req: Request): AppError {
-  if (databaseDown.has(err?.name ?? "") || databaseDown.has(err?.parent?.name ?? "") || err?.code === "ECONNREFUSED") {
+function unexpected(err: MaybeDbError, req: Request): AppError {
+  if (isDatabaseDown(err)) {
+    logger.warn(
+      { err: { name: err?.name, code: err?.parent?.code ?? err?.code }, reqId: req.id },
+      "database unavailable",
+    );
     return new AppError(
       503,
       "database_unavailable",

@@ -1,7 +1,7 @@
 import { z } from "zod";
 import { FEED_BINDINGS } from "../domain/feed-budget";
 import { FeedWarningSchema } from "./calc";
-import { isoDate } from "./common";
+import { isoDate, noteText, oneLineText } from "./common";
 
 export const DigesterStatusSchema = z.enum(["active", "resting", "offline"]);
 export type DigesterStatus = z.infer<typeof DigesterStatusSchema>;
@@ -100,14 +100,8 @@ export type DigesterProfile = z.infer<typeof DigesterProfileSchema>;
  */
 export const UpdateDigesterProfileSchema = z
   .object({
-    name: z
-      .string({ error: "Give a name." })
-      .trim()
-      .min(1, "Give a name.")
-      .max(120, "Use at most 120 characters.")
-      .optional(),
-    siteDescription: z
-      .string({ error: "The description must be text." })
+    name: oneLineText("Give a name.").trim().min(1, "Give a name.").max(120, "Use at most 120 characters.").optional(),
+    siteDescription: noteText("The description must be text.")
       .trim()
       .max(500, "Use at most 500 characters.")
       .optional(),
@@ -123,8 +117,7 @@ export const UpdateDigesterProfileSchema = z
     startedOn: isoDate("Start date").optional(),
     gasFirstBurnedOn: isoDate("Gas first burned").nullable().optional(),
     olrRefKgVsPerM3Day: profileNumber("Reference loading rate", 0.1, PROFILE_OLR_REF_MAX, "kg VS/m³/day").optional(),
-    olrOverrideReason: z
-      .string({ error: "The reason must be text." })
+    olrOverrideReason: noteText("The reason must be text.")
       .trim()
       .max(500, "Use at most 500 characters.")
       .nullable()
@@ -142,8 +135,7 @@ export type UpdateDigesterProfileParsed = z.output<typeof UpdateDigesterProfileS
 export const SetDigesterStatusSchema = z
   .object({
     status: DigesterStatusSchema,
-    reason: z
-      .string({ error: "The reason must be text." })
+    reason: noteText("The reason must be text.")
       .trim()
       .max(500, "Use at most 500 characters.")
       .nullish()

@@ -5,7 +5,7 @@
  */
 import { z } from "zod";
 import { DROP_OFF_MIXES } from "../domain/drop-offs";
-import { IsoDateSchema } from "./common";
+import { IsoDateSchema, noteText } from "./common";
 
 export { IsoDateSchema };
 
@@ -88,8 +88,7 @@ export const CreateDropOffSchema = z
     weightKg: weightKg.optional(),
     mix: DropOffMixSchema.default("mixed"),
     citrusPercent: citrusPercent.default(0),
-    note: z
-      .string({ error: "The note must be text." })
+    note: noteText("The note must be text.")
       .trim()
       .max(MAX_NOTE_LENGTH, `Use at most ${MAX_NOTE_LENGTH} characters.`)
       .optional()

@@ -5,7 +5,7 @@
  * (0001-core.ts) and, for the sensor columns, issue 5 (−40…90 °C, pH 0…14, gas 0…100 %).
  */
 import { z } from "zod";
-import { IsoDateOrDateTimeSchema, IsoDateTimeSchema } from "./common";
+import { IsoDateOrDateTimeSchema, IsoDateTimeSchema, noteText } from "./common";
 
 export { IsoDateTimeSchema };
 
@@ -76,8 +76,7 @@ export const CreateReadingSchema = z
       r.gasUsedMinutes.max,
       r.gasUsedMinutes.unit,
     ).nullish(),
-    note: z
-      .string({ error: "The note must be text." })
+    note: noteText("The note must be text.")
       .trim()
       .max(MAX_READING_NOTE_LENGTH, `Use at most ${MAX_READING_NOTE_LENGTH} characters.`)
       .nullish()

@@ -5,7 +5,11 @@ import {
   IsoDateSchema,
   IsoDateTimeSchema,
   LAST_DAY,
+  NOTE_TEXT_MESSAGE,
+  ONE_LINE_MESSAGE,
   isoDate,
+  noteText,
+  oneLineText,
 } from "../../shared/schemas/common";
 
 const firstMessage = (r: { success: boolean; error?: { issues: { message: string }[] } }) =>
@@ -53,5 +57,45 @@ describe("the shared date-time schema", () => {
     expect(firstMessage(IsoDateOrDateTimeSchema.safeParse("yesterday"))).toBe(
       "Give a day as YYYY-MM-DD or a date-time with offset.",
     );
+  });
+});
+
+describe("one-line text and note text", () => {
+  const name = oneLineText("Enter a name.").trim().min(1, "Enter a name.");
+  const note = noteText("The note must be text.").trim();
+
+  it("when a name has letters from any script, spaces and punctuation, then it is taken (trimmed)", () => {
+    for (const [given, kept] of [
+      ["  Ada Quell ", "Ada Quell"],
+      ["Zoë Ō'Brien-Ngata", "Zoë Ō'Brien-Ngata"],
+      ["北野 千尋", "北野 千尋"],
+      ["Ama 👩🏾‍🌾", "Ama 👩🏾‍🌾"],
+    ]) {
+      expect(name.parse(given)).toBe(kept);
+    }
+  });
+
+  it("when a name holds any C0 or C1 control, DEL or a Unicode line separator, even at its ends, then it is refused", () => {
+    const controls = [
+      ...Array.from({ length: 0x20 }, (_, i) => i),
+      0x7f,
+      ...Array.from({ length: 0x20 }, (_, i) => 0x80 + i),
+      0x2028,
+      0x2029,
+    ];
+    for (const code of controls) {
+      const ch = String.fromCharCode(code);
+      expect(firstMessage(name.safeParse(`Ada${ch}Quell`)), `U+${code.toString(16)}`).toBe(ONE_LINE_MESSAGE);
+      expect(firstMessage(name.safeParse(`Ada Quell${ch}`)), `U+${code.toString(16)} at the end`).toBe(
+        ONE_LINE_MESSAGE,
+      );
+    }
+  });
+
+  it("when a note has line breaks and tabs, then they are kept; other controls are refused", () => {
+    expect(note.parse("first\r\nsecond\n\tthird")).toBe("first\r\nsecond\n\tthird");
+    for (const ch of ["\u0000", "\u0007", "\u000b", "\u000c", "\u001b", "\u007f", "\u0085"]) {
+      expect(firstMessage(note.safeParse(`a${ch}b`)), JSON.stringify(ch)).toBe(NOTE_TEXT_MESSAGE);
+    }
   });
 });

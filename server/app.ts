@@ -15,6 +15,7 @@ import { apiRouter } from "./routes";
 import { redactUrl, securityErrorLogger } from "./lib/security-log";
 import { csrfProtection } from "./middleware/csrf";
 import { inputGuard } from "./middleware/input-guard";
+import { permissionsPolicy } from "./middleware/permissions-policy";
 import { passportMiddleware, sessionLifetime, sessionMiddleware } from "./middleware/session";
 
 export interface AppOptions {
@@ -53,6 +54,7 @@ export function createApp(options: AppOptions = {}): Express {
       strictTransportSecurity: e.NODE_ENV === "production",
     }),
   );
+  app.use(permissionsPolicy);
 
   app.use(
     pinoHttp({

@@ -163,6 +163,7 @@ export async function addMember(caller: Caller, input: Required<AddMember>, now 
   const expiresAt = new Date(now.getTime() + INVITATION_TTL_MS);
   try {
     const personId = await sequelize().transaction(async (t) => {
+      await peopleRepo.lockInvitationAddress(t, input.email);
       if (await peopleRepo.lockPerson(t, { email: input.email })) throw alreadyKnown();
       if ((await repo.countMembers(t, householdId)) >= MAX_HOUSEHOLD_MEMBERS) {
         throw conflict(

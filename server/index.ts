@@ -1,10 +1,11 @@
 /**
  * Boot: env → database → createApp() → listen → graceful shutdown.
  *
- * Shutdown (SIGTERM, SIGINT): stop accepting, answer every request already received (with
- * `Connection: close`), close each connection once nothing is in flight on it, then stop the
- * jobs, the solver worker, the database pool and the mailer, and exit 0. Exit 1 only when
- * something hangs past the deadline (requests still running after 8 s are cut; 9.5 s in all).
+ * Shutdown (SIGTERM, SIGINT, SIGHUP, or the supervisor's IPC channel closing): stop
+ * accepting, answer every request already received (with `Connection: close`), close each
+ * connection once nothing is in flight on it, then stop the jobs, the solver worker, the
+ * database pool and the mailer, and exit 0. Exit 1 only when something hangs past the
+ * deadline (requests still running after 8 s are cut; 9.5 s in all).
  */
 import { createServer, type Server } from "node:http";
 import { env, EnvError, parseEnv } from "./config/env";
@@ -82,8 +83,8 @@ async function main() {
       logger.error({ cut }, `requests still running after ${DRAIN_DEADLINE_MS / 1000} s were cut`);
     }
     await stopJobs().catch((err: unknown) => logger.warn({ err: (err as Error).message }, "stopping jobs failed"));
-    await stopSolver().catch(() => undefined);
-    await closeDatabase().catch(() => undefined);
+    // Independent of each other once no request or job needs them.
+    await Promise.all([stopSolver().catch(() => undefined), closeDatabase().catch(() => undefined)]);
     closeMail();
     clearTimeout(force);
     logger.info({ ms: Date.now() - started }, "stopped");
@@ -91,6 +92,11 @@ async function main() {
   }
   process.on("SIGTERM", () => void shutdown("SIGTERM"));
   process.on("SIGINT", () => void shutdown("SIGINT"));
+  // A closed terminal sends SIGHUP, whose default would end the process without draining.
+  process.on("SIGHUP", () => void shutdown("SIGHUP"));
+  // Under `npm start` the supervisor holds an IPC channel; when it dies (even by SIGKILL) the
+  // channel closes and the server stops too, instead of holding the port as an orphan.
+  if (process.connected) process.on("disconnect", () => void shutdown("supervisor gone"));
 }
 
 void main();

@@ -20,6 +20,7 @@ import { IdempotencyKeyModel } from "./idempotency-key.model";
 import { InvitationModel } from "./invitation.model";
 import { OutboxEmailModel } from "./outbox-email.model";
 import { PasswordResetModel } from "./password-reset.model";
+import { PasswordResetRequestModel } from "./password-reset-request.model";
 import { PersonModel } from "./person.model";
 import { RateLimitHitModel } from "./rate-limit-hit.model";
 import { ReadingModel } from "./reading.model";
@@ -42,6 +43,7 @@ const all = {
   OutboxEmail: OutboxEmailModel,
   Invitation: InvitationModel,
   PasswordReset: PasswordResetModel,
+  PasswordResetRequest: PasswordResetRequestModel,
   Session: SessionModel,
   RateLimitHit: RateLimitHitModel,
 };

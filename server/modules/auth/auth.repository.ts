@@ -1,8 +1,10 @@
 /**
- * `password_resets` and `rate_limit_hits` (see sign-in-throttle.ts) are the auth module's; the
- * people, their passwords and sessions belong to the people module (its index.ts).
+ * `password_resets`, `password_reset_requests` and `rate_limit_hits` (see sign-in-throttle.ts)
+ * are the auth module's; the people, their passwords and sessions belong to the people module
+ * (its index.ts).
  */
-import { QueryTypes, type Transaction } from "sequelize";
+import { Op, QueryTypes, type Transaction } from "sequelize";
+import { models } from "../../db/models";
 import { sequelize } from "../../db/sequelize";
 
 interface ResetStatusRow {
@@ -10,11 +12,7 @@ interface ResetStatusRow {
 }
 
 export async function countRecentResets(personId: number, since: Date, transaction?: Transaction): Promise<number> {
-  const rows = await sequelize().query<{ n: string }>(
-    `SELECT count(*) AS n FROM password_resets WHERE person_id = $1 AND created_at > $2`,
-    { bind: [personId, since], type: QueryTypes.SELECT, transaction },
-  );
-  return Number(rows[0]?.n ?? 0);
+  return models().PasswordReset.count({ where: { personId, createdAt: { [Op.gt]: since } }, transaction });
 }
 
 export async function insertReset(
@@ -23,10 +21,7 @@ export async function insertReset(
   tokenHash: string,
   expiresAt: Date,
 ): Promise<void> {
-  await sequelize().query(`INSERT INTO password_resets (token_hash, person_id, expires_at) VALUES ($1, $2, $3)`, {
-    bind: [tokenHash, personId, expiresAt],
-    transaction,
-  });
+  await models().PasswordReset.create({ tokenHash, personId, expiresAt }, { transaction });
 }
 
 export interface ResetRow {
@@ -37,7 +32,10 @@ export interface ResetRow {
   personStatus: ResetStatusRow["status"];
 }
 
-/** The reset row for a token hash, locked for the rest of the transaction so it is used once. */
+/**
+ * The reset row for a token hash, locked for the rest of the transaction so it is used once.
+ * SQL: a row lock on the reset alone (`FOR UPDATE OF r`) while reading its person's status.
+ */
 export async function findResetForUpdate(transaction: Transaction, tokenHash: string): Promise<ResetRow | null> {
   const rows = await sequelize().query<{
     id: number;
@@ -60,15 +58,12 @@ export async function findResetForUpdate(transaction: Transaction, tokenHash: st
 
 /** Marks this and every other open reset link of the person used: one new password ends them all. */
 export async function useResets(transaction: Transaction, personId: number): Promise<void> {
-  await sequelize().query(`UPDATE password_resets SET used_at = now() WHERE person_id = $1 AND used_at IS NULL`, {
-    bind: [personId],
-    transaction,
-  });
+  await models().PasswordReset.update({ usedAt: new Date() }, { where: { personId, usedAt: null }, transaction });
 }
 
 /** Stores a reset request for an address as typed (known or not): the same statement either way. */
 export async function insertResetRequest(email: string): Promise<void> {
-  await sequelize().query(`INSERT INTO password_reset_requests (email) VALUES ($1)`, { bind: [email] });
+  await models().PasswordResetRequest.create({ email });
 }
 
 /**

@@ -163,6 +163,7 @@ export async function addMember(caller: Caller, input: Required<AddMember>, now 
   const expiresAt = new Date(now.getTime() + INVITATION_TTL_MS);
   try {
     const personId = await sequelize().transaction(async (t) => {
+      await people.lockInvitationAddress(t, input.email);
       if (await people.lockPerson(t, { email: input.email })) throw alreadyKnown();
       if ((await people.countMembers(t, householdId)) >= MAX_HOUSEHOLD_MEMBERS) {
         throw conflict(

@@ -15,6 +15,7 @@ export {
   findMembers,
   insertInvitation,
   insertInvitedPerson,
+  lockInvitationAddress,
   lockPerson,
   lockPersonHousehold,
   residentsOf,

@@ -76,6 +76,7 @@ export interface LockedPerson {
   status: PersonStatus;
   roles: Role[];
   hasPassword: boolean;
+  householdId: number | null;
 }
 
 /** Locks the person row for the transaction (by id or e-mail). */
@@ -92,13 +93,22 @@ export async function lockPerson(
     status: PersonStatus;
     roles: Role[];
     has_password: boolean;
+    household_id: number | null;
   }>(
-    `SELECT id, email, name, status, roles, password_hash IS NOT NULL AS has_password FROM people WHERE ${where} FOR UPDATE`,
+    `SELECT id, email, name, status, roles, password_hash IS NOT NULL AS has_password, household_id FROM people WHERE ${where} FOR UPDATE`,
     { bind: [value], type: QueryTypes.SELECT, transaction },
   );
   const r = rows[0];
   return r
-    ? { id: r.id, email: r.email, name: r.name, status: r.status, roles: r.roles, hasPassword: r.has_password }
+    ? {
+        id: r.id,
+        email: r.email,
+        name: r.name,
+        status: r.status,
+        roles: r.roles,
+        hasPassword: r.has_password,
+        householdId: r.household_id,
+      }
     : null;
 }
 
@@ -117,6 +127,33 @@ async function checkingHousehold<T>(write: () => Promise<T>): Promise<T> {
     }
     throw err;
   }
+}
+
+/**
+ * Invitations of one address (in any letter case) take turns until the transaction ends, so
+ * two at once cannot both find "nobody yet" and race to insert the same person. Advisory, not
+ * a row lock: before the first invitation there is no row to lock.
+ */
+export async function lockInvitationAddress(transaction: Transaction, email: string): Promise<void> {
+  await sequelize().query(`SELECT pg_advisory_xact_lock(hashtext('hearthloop.invitation:' || lower($1)))`, {
+    bind: [email],
+    transaction,
+  });
+}
+
+/** The person's open invitation if it was written less than `seconds` ago (database clock), else null. */
+export async function recentOpenInvitation(
+  transaction: Transaction,
+  personId: number,
+  seconds: number,
+): Promise<{ name: string; roles: Role[] } | null> {
+  const rows = await sequelize().query<{ name: string; roles: Role[] }>(
+    `SELECT name, roles FROM invitations
+      WHERE person_id = $1 AND used_at IS NULL AND expires_at > now() AND created_at > now() - make_interval(secs => $2)
+      ORDER BY created_at DESC LIMIT 1`,
+    { bind: [personId, seconds], type: QueryTypes.SELECT, transaction },
+  );
+  return rows[0] ?? null;
 }
 
 export async function insertInvitedPerson(

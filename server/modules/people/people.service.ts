@@ -1,3 +1,4 @@
+import { UniqueConstraintError } from "sequelize";
 import { appUrl } from "../../config/env";
 import { sequelize } from "../../db/sequelize";
 import { AppError, badRequest, conflict, notFound } from "../../lib/app-error";
@@ -21,6 +22,22 @@ import { invitationEmail } from "../outbox/templates";
 import * as repo from "./people.repository";
 
 export const INVITATION_TTL_MS = 7 * 24 * 60 * 60_000;
+/** The same invitation sent again within this many seconds is a repeat (a double click, a burst), not a new one. */
+export const REPEAT_INVITATION_SECONDS = 60;
+
+const repeatedInvitation = () =>
+  conflict(
+    "This invitation went to this address a moment ago. It may take a few minutes to arrive; send it again after that if it has not.",
+    { email: "was invited with the same details less than a minute ago" },
+  );
+
+const addressJustTaken = () =>
+  conflict("Another account or invitation took this address a moment ago. Reload the list of people to see it.", {
+    email: "was taken by another account or invitation a moment ago",
+  });
+
+const sameRoles = (a: readonly Role[], b: readonly Role[]) =>
+  a.length === b.length && [...a].sort().join() === [...b].sort().join();
 
 export function listPeople(): Promise<PersonRow[]> {
   return repo.listPeople();
@@ -30,7 +47,9 @@ export function listPeople(): Promise<PersonRow[]> {
  * Invites someone by e-mail: a person row in status "invited" (so roles and steward duties can
  * be set before they accept), a one-time link valid 7 days (only its hash is stored), and the
  * e-mail in the outbox, all in one transaction. Inviting an invited person again replaces the
- * old link.
+ * old link, unless it repeats the same invitation within a minute: invitations of one address
+ * take turns (advisory lock), so of a burst of the same invitation one is sent and the others
+ * are 409.
  */
 export async function invite(
   caller: Caller,
@@ -39,52 +58,66 @@ export async function invite(
 ): Promise<InvitationCreated> {
   const { token, hash } = newOneTimeToken();
   const expiresAt = new Date(now.getTime() + INVITATION_TTL_MS);
-  const personId = await sequelize().transaction(async (t) => {
-    const existing = await repo.lockPerson(t, { email: input.email });
-    if (existing && existing.status !== "invited") {
-      throw conflict("This person already has an account.", {
-        email: "Someone with this e-mail address already has an account.",
-      });
-    }
-    let id: number;
-    if (existing) {
-      id = existing.id;
-      await repo.updatePerson(t, id, {
-        roles: input.roles,
-        ...(input.name ? { name: input.name } : {}),
-        ...(input.householdId !== undefined ? { householdId: input.householdId } : {}),
-      });
-      await repo.revokeInvitations(t, id);
-    } else {
-      // The name column needs a value; until they choose one, the invitation shows the address.
-      id = await repo.insertInvitedPerson(t, {
+  const personId = await sequelize()
+    .transaction(async (t) => {
+      await repo.lockInvitationAddress(t, input.email);
+      const existing = await repo.lockPerson(t, { email: input.email });
+      if (existing && existing.status !== "invited") {
+        throw conflict("This person already has an account.", {
+          email: "Someone with this e-mail address already has an account.",
+        });
+      }
+      let id: number;
+      if (existing) {
+        id = existing.id;
+        const recent = await repo.recentOpenInvitation(t, id, REPEAT_INVITATION_SECONDS);
+        const sameDetails =
+          recent !== null &&
+          sameRoles(recent.roles, input.roles) &&
+          recent.name === input.name &&
+          (input.householdId === undefined || input.householdId === existing.householdId);
+        if (sameDetails) throw repeatedInvitation();
+        await repo.updatePerson(t, id, {
+          roles: input.roles,
+          ...(input.name ? { name: input.name } : {}),
+          ...(input.householdId !== undefined ? { householdId: input.householdId } : {}),
+        });
+        await repo.revokeInvitations(t, id);
+      } else {
+        // The name column needs a value; until they choose one, the invitation shows the address.
+        id = await repo.insertInvitedPerson(t, {
+          email: input.email,
+          name: input.name || input.email.split("@")[0]!.slice(0, 120),
+          roles: input.roles,
+          householdId: input.householdId ?? null,
+        });
+      }
+      await repo.insertInvitation(t, {
+        tokenHash: hash,
         email: input.email,
-        name: input.name || input.email.split("@")[0]!.slice(0, 120),
-        roles: input.roles,
-        householdId: input.householdId ?? null,
-      });
-    }
-    await repo.insertInvitation(t, {
-      tokenHash: hash,
-      email: input.email,
-      name: input.name,
-      roles: input.roles,
-      invitedBy: caller.id,
-      expiresAt,
-      personId: id,
-    });
-    await enqueueEmail(
-      t,
-      invitationEmail({
-        to: input.email,
         name: input.name,
-        inviterName: caller.name,
-        link: `${appUrl()}/invitation/${token}`,
+        roles: input.roles,
+        invitedBy: caller.id,
         expiresAt,
-      }),
-    );
-    return id;
-  });
+        personId: id,
+      });
+      await enqueueEmail(
+        t,
+        invitationEmail({
+          to: input.email,
+          name: input.name,
+          inviterName: caller.name,
+          link: `${appUrl()}/invitation/${token}`,
+          expiresAt,
+        }),
+      );
+      return id;
+    })
+    .catch((err: unknown) => {
+      // The address became an account's a moment ago (an e-mail change, a household's invitation).
+      if (err instanceof UniqueConstraintError) throw addressJustTaken();
+      throw err;
+    });
   return { personId, email: input.email, expiresAt: expiresAt.toISOString() };
 }
 

@@ -14,7 +14,7 @@ import type { z } from "zod";
 import { env, type Env } from "../config/env";
 import { sequelize } from "../db/sequelize";
 import { logger } from "../lib/logger";
-import { passport } from "../lib/passport";
+import { passport } from "../modules/auth/passport";
 import { logSecurityEvent } from "../lib/security-log";
 import type { SessionInfo } from "../../shared/schemas/auth";
 import { rememberDevice } from "../modules/auth/known-device";

@@ -4,6 +4,7 @@
  * are plain `z.object`s (an added field does not break an older client) that the API client parses.
  */
 import { z } from "zod";
+import { oneLineText } from "./common";
 
 const id = z
   .number({ error: "Must be a whole number id." })
@@ -38,9 +39,9 @@ export const AssignmentChangeSchema = z
 /** `POST /api/assignments/apply`. */
 export const ApplyRequestSchema = z
   .object({
-    version: z.string({ error: "Send the proposal's version." }).min(1).max(128),
+    version: oneLineText("Send the proposal's version.").min(1).max(128),
     changes: z.array(AssignmentChangeSchema).max(20_000, "Too many changes."),
-    reason: z.string().trim().max(300, "Use at most 300 characters.").optional(),
+    reason: oneLineText("The reason must be text.").trim().max(300, "Use at most 300 characters.").optional(),
   })
   .strict();
 export type ApplyRequest = z.infer<typeof ApplyRequestSchema>;

@@ -12,6 +12,7 @@ import {
   nearestWithRoomBaseline,
 } from "../../../shared/domain/assignment";
 import { haversineM, isValidLatLng } from "../../../shared/domain/geo";
+import { householdWeeklyKg } from "../../../shared/domain/room";
 import { WEEKLY_ROOM_METHOD, projectWeeklyRoom } from "../../../shared/domain/weekly-room";
 import type {
   ApplyRequest,
@@ -26,27 +27,45 @@ import type {
 import { proposalNoteWords, suggestionWords, unplacedWords } from "../../../shared/words/assignment-board";
 import { sequelize } from "../../db/sequelize";
 import { AppError, badRequest, conflict, notFound } from "../../lib/app-error";
-import { daysBetween, localDate } from "../../lib/clock";
-import { type DigesterToday, loadDigestersToday } from "../digesters/digester-state.service";
+import { localDate } from "../../lib/clock";
+import { type DigesterToday, loadDigestersToday, recentDeliveries } from "../digesters";
+import { assignmentRows, assignmentVersion, setAssignment, type AssignmentRow } from "../households";
+import { residentsOf } from "../people";
 import { enqueueEmail } from "../outbox/outbox.service";
 import { type MoveReason, newDigesterEmail } from "./assignments.emails";
 import { solverNotes } from "./assignments.notes";
 import { solveOffThread } from "./solver-pool";
 import * as repo from "./assignments.repository";
 
-/** Weeks of history below which the declared amount is used. */
-export const MIN_HISTORY_WEEKS = 2;
-const HISTORY_WEEKS = 8;
-
-/** Expected kg a week: recent fed/accepted kg over the weeks since the first of them (2…8), else declared. */
-export function householdWeeklyKg(h: repo.AssignableHousehold, today: string): number {
-  if (h.recentWeeks < MIN_HISTORY_WEEKS || h.firstRecentDay === null) return h.declaredWeeklyKg;
-  const spanWeeks = Math.min(
-    HISTORY_WEEKS,
-    Math.max(MIN_HISTORY_WEEKS, Math.ceil((daysBetween(h.firstRecentDay, today) + 1) / 7)),
-  );
-  return h.recentKg / spanWeeks;
+export interface AssignableHousehold extends AssignmentRow {
+  /** kg fresh fed or accepted in the last 56 days. */
+  recentKg: number;
+  /** Distinct weeks (Monday-based) with a fed or accepted drop-off in the last 56 days. */
+  recentWeeks: number;
+  /** First day of a fed or accepted drop-off in the last 56 days. */
+  firstRecentDay: string | null;
 }
+
+/**
+ * Every household with what the scheduler needs: place, current assignment and pin, declared
+ * amount and its last 8 weeks of fed or accepted drop-offs.
+ */
+async function assignableHouseholds(today: string, transaction?: Transaction): Promise<AssignableHousehold[]> {
+  const [rows, deliveries] = await Promise.all([assignmentRows(transaction), recentDeliveries(today, transaction)]);
+  const byHousehold = new Map(deliveries.map((d) => [d.householdId, d]));
+  return rows.map((h) => {
+    const d = byHousehold.get(h.id);
+    return {
+      ...h,
+      recentKg: d?.recentKg ?? 0,
+      recentWeeks: d?.recentWeeks ?? 0,
+      firstRecentDay: d?.firstRecentDay ?? null,
+    };
+  });
+}
+
+/** A household's expected weekly kg: shared/domain/room.ts (recent history, else declared). */
+export { MIN_HISTORY_WEEKS, householdWeeklyKg } from "../../../shared/domain/room";
 
 /** Weekly room of a digester in fresh kg (0 when closed or excluded). */
 export function digesterWeeklyRoomKg(state: DigesterToday, excluded: boolean): number {
@@ -66,8 +85,8 @@ export async function propose(request: ProposalRequest, now = new Date()): Promi
     // One snapshot for the households and the version, so a change landing in between cannot
     // give a stale proposal a fresh version (apply would then not answer 409).
     sequelize().transaction({ isolationLevel: Transaction.ISOLATION_LEVELS.REPEATABLE_READ }, async (transaction) => {
-      const rows = await repo.assignableHouseholds(today, transaction);
-      return [rows, await repo.assignmentVersion(transaction)] as const;
+      const rows = await assignableHouseholds(today, transaction);
+      return [rows, await assignmentVersion(transaction)] as const;
     }),
     loadDigestersToday(null, { now }),
   ]);
@@ -266,7 +285,7 @@ function moveReason(
   m: Move,
   ctx: {
     stateById: Map<number, DigesterToday>;
-    householdById: Map<number, repo.AssignableHousehold>;
+    householdById: Map<number, AssignableHousehold>;
     loadsBefore: Map<number, number>;
   },
 ): MoveReason {
@@ -311,12 +330,12 @@ async function notifyMoves(
 ): Promise<number> {
   if (moves.length === 0) return 0;
   const [residents, states, households] = await Promise.all([
-    repo.residentsOf(
+    residentsOf(
       moves.map((m) => m.householdId),
       transaction,
     ),
     loadDigestersToday(null, { now, transaction }),
-    repo.assignableHouseholds(localDate(now), transaction),
+    assignableHouseholds(localDate(now), transaction),
   ]);
   const stateById = new Map(states.map((s) => [s.digester.id, s.digester]));
   const householdById = new Map(households.map((h) => [h.id, h]));
@@ -354,13 +373,13 @@ async function notifyMoves(
 export async function apply(request: ApplyRequest, now = new Date()): Promise<ApplyResult> {
   return sequelize().transaction(async (transaction) => {
     await repo.lockAssignments(transaction);
-    const current = await repo.assignmentVersion(transaction);
+    const current = await assignmentVersion(transaction);
     if (current !== request.version) {
       throw conflict(
         "The assignment changed since this proposal was made (another coordinator applied one, or a pin changed). Run a new proposal; nothing was changed.",
       );
     }
-    const households = await repo.assignableHouseholds(localDate(now), transaction);
+    const households = await assignableHouseholds(localDate(now), transaction);
     const byId = new Map(households.map((h) => [h.id, h]));
     const states = await loadDigestersToday(null, { now, transaction });
     const stateById = new Map(states.map((s) => [s.digester.id, s]));
@@ -386,7 +405,7 @@ export async function apply(request: ApplyRequest, now = new Date()): Promise<Ap
     for (const c of request.changes) {
       const h = byId.get(c.householdId)!;
       const pinned = c.digesterId === null ? false : (c.pinned ?? h.pinned);
-      await repo.setAssignment(transaction, c.householdId, c.digesterId, pinned);
+      await setAssignment(transaction, c.householdId, c.digesterId, pinned);
       if (c.digesterId !== null && c.digesterId !== h.assignedDigesterId) {
         moves.push({ householdId: h.id, fromDigesterId: h.assignedDigesterId, toDigesterId: c.digesterId });
       }
@@ -404,7 +423,7 @@ export async function apply(request: ApplyRequest, now = new Date()): Promise<Ap
       ? ({ code: "coordinatorReason", text: request.reason } as const)
       : (m: Move) => moveReason(m, { stateById, householdById: byId, loadsBefore });
     const emailsQueued = await notifyMoves(transaction, moves, why, now);
-    return { applied: request.changes.length, emailsQueued, version: await repo.assignmentVersion(transaction) };
+    return { applied: request.changes.length, emailsQueued, version: await assignmentVersion(transaction) };
   });
 }
 
@@ -416,7 +435,7 @@ export async function setPin(
 ): Promise<{ householdId: number; assignedDigesterId: number | null; pinned: boolean; version: string }> {
   return sequelize().transaction(async (transaction) => {
     await repo.lockAssignments(transaction);
-    const households = await repo.assignableHouseholds(localDate(now), transaction);
+    const households = await assignableHouseholds(localDate(now), transaction);
     const h = households.find((x) => x.id === householdId);
     if (!h) throw notFound("The household");
     const digesterId = input.digesterId ?? h.assignedDigesterId;
@@ -435,7 +454,7 @@ export async function setPin(
           `${s.digester.name} is ${s.digester.status}: it takes no households.`,
         );
     }
-    await repo.setAssignment(transaction, householdId, digesterId, input.pinned);
+    await setAssignment(transaction, householdId, digesterId, input.pinned);
     if (digesterId !== null && digesterId !== h.assignedDigesterId) {
       await notifyMoves(
         transaction,
@@ -448,7 +467,7 @@ export async function setPin(
       householdId,
       assignedDigesterId: digesterId,
       pinned: input.pinned,
-      version: await repo.assignmentVersion(transaction),
+      version: await assignmentVersion(transaction),
     };
   });
 }

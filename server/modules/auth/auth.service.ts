@@ -1,20 +1,20 @@
 import { appUrl } from "../../config/env";
 import { sequelize } from "../../db/sequelize";
-import { AppError, badRequest } from "../../lib/app-error";
-import { isCommonPassword } from "../../lib/common-passwords";
+import { AppError } from "../../lib/app-error";
 import { dummyPasswordHash, hashPassword, verifyPassword } from "../../lib/password";
 import { logSecurityEvent } from "../../lib/security-log";
 import { hashToken, newOneTimeToken } from "../../lib/tokens";
 import type { Caller } from "../../middleware/handle";
 import { enqueueEmail } from "../outbox/outbox.service";
 import { passwordResetEmail } from "../outbox/templates";
+import { assertAcceptablePassword } from "../../lib/password";
+import type { RequestContext } from "../../lib/caller";
+import * as people from "../people";
 import * as repo from "./auth.repository";
 import { clearSignInFailures } from "./sign-in-throttle";
 
-export interface RequestContext {
-  requestId: string;
-  ip: string;
-}
+export type { RequestContext } from "../../lib/caller";
+export { assertAcceptablePassword } from "../../lib/password";
 
 export const RESET_LINK_TTL_MS = 60 * 60_000;
 /** At most this many reset e-mails per account per hour, so the form cannot flood an inbox. */
@@ -33,7 +33,7 @@ export const invalidCredentials = () =>
  * verification (against a dummy hash), so the answer takes about as long either way.
  */
 export async function verifyCredentials(email: string, password: string, ctx: RequestContext): Promise<Caller | null> {
-  const record = await repo.findByEmail(email);
+  const record = await people.findByEmail(email);
   const usable = record && record.status === "active" && record.passwordHash;
   const ok = await verifyPassword(usable ? record.passwordHash! : await dummyPasswordHash(), password);
   if (usable && ok) {
@@ -51,16 +51,7 @@ export async function verifyCredentials(email: string, password: string, ctx: Re
 
 /** The person a session belongs to, as long as the account is still active. */
 export function sessionCaller(personId: number): Promise<Caller | null> {
-  return repo.findActiveCaller(personId);
-}
-
-/** Refuses passwords on the common-password list with a field error (length is the schema's job). */
-export function assertAcceptablePassword(password: string, field: string): void {
-  if (isCommonPassword(password)) {
-    throw badRequest("Please choose a less common password.", {
-      [field]: "This password is on the list of most common passwords, which attackers try first. Choose another.",
-    });
-  }
+  return people.findActiveCaller(personId);
 }
 
 const resetListeners = new Set<() => void>();
@@ -101,7 +92,7 @@ export async function processResetRequests(now = new Date()): Promise<number> {
     const took = await sequelize().transaction(async (t) => {
       const request = await repo.takeResetRequest(t);
       if (!request) return false;
-      const record = await repo.findByEmail(request.email, t);
+      const record = await people.findByEmail(request.email, t);
       if (!record || record.status !== "active") return true;
       const personId = record.caller.id;
       await repo.lockResetsOf(t, personId);
@@ -167,10 +158,10 @@ export async function completePasswordReset(
   const passwordHash = await hashPassword(password);
   const person = await sequelize().transaction(async (t) => {
     const reset = await usableReset(t, token, now);
-    await repo.setPassword(t, reset.personId, passwordHash);
+    await people.setPassword(t, reset.personId, passwordHash);
     await repo.useResets(t, reset.personId);
-    await repo.deleteSessionsOf(reset.personId, undefined, t);
-    const record = await repo.findById(reset.personId, t);
+    await people.deleteSessionsOf(reset.personId, undefined, t);
+    const record = await people.findById(reset.personId, t);
     await clearSignInFailures(record!.caller.email, t);
     return { personId: reset.personId, email: record!.caller.email };
   });

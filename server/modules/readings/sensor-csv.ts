@@ -21,7 +21,7 @@ import {
   SENSOR_CSV_MAX_ROWS,
   type SensorCsvColumn,
 } from "../../../shared/schemas/readings";
-import type { SensorRows } from "./readings.repository";
+import type { SensorRows } from "../digesters";
 
 export interface ParsedSensorLog {
   rows: SensorRows;

@@ -1,14 +1,13 @@
-import { QueryTypes, type Transaction } from "sequelize";
+/**
+ * `readings`, owned by the digester's day (they feed its budget): a steward's or a sensor's
+ * measurements. Plain reads and writes through the Reading model; SQL where a per-kind latest
+ * value (LATERAL top-1) or an ON CONFLICT upsert needs it.
+ */
+import { Op, QueryTypes, type Transaction } from "sequelize";
+import { models } from "../../db/models";
+import type { ReadingModel } from "../../db/models/reading.model";
 import { sequelize } from "../../db/sequelize";
 import type { Reading } from "../../../shared/schemas/readings";
-
-// NUMERIC columns are cast to float8: the driver returns NUMERIC as strings.
-const readingColumns = `
-  r.id::int AS id, r.digester_id AS "digesterId", r.taken_at AS "takenAt",
-  r.temperature_c::float8 AS "temperatureC", r.ph::float8 AS ph, r.vfa_ta_ratio::float8 AS "vfaTaRatio",
-  r.titration_a_ml::float8 AS "titrationAMl", r.titration_b_ml::float8 AS "titrationBMl",
-  r.gas_level_percent::float8 AS "gasLevelPercent", r.drum_rise_m::float8 AS "drumRiseM",
-  r.gas_used_minutes::float8 AS "gasUsedMinutes", r.note, r.source, p.name AS "enteredBy"`;
 
 export interface NewReading {
   digesterId: number;
@@ -25,35 +24,48 @@ export interface NewReading {
   personId: number;
 }
 
-/** The driver gives timestamptz as a Date; the contract carries ISO strings (UTC). */
-function normalise(row: Reading): Reading {
-  return { ...row, takenAt: new Date(row.takenAt).toISOString() };
+/** The contract's reading: who entered it by name, the time as an ISO string (UTC). */
+function toReading(row: ReadingModel): Reading {
+  const r = row;
+  return {
+    id: r.id,
+    digesterId: r.digesterId,
+    takenAt: new Date(r.takenAt).toISOString(),
+    temperatureC: r.temperatureC,
+    ph: r.ph,
+    vfaTaRatio: r.vfaTaRatio,
+    titrationAMl: r.titrationAMl,
+    titrationBMl: r.titrationBMl,
+    gasLevelPercent: r.gasLevelPercent,
+    drumRiseM: r.drumRiseM,
+    gasUsedMinutes: r.gasUsedMinutes,
+    note: r.note,
+    source: r.source,
+    enteredBy: r.person?.name ?? null,
+  };
 }
 
+const enteredBy = { association: "person", attributes: ["name"] };
+
 export async function insertReading(input: NewReading): Promise<Reading> {
-  const [row] = await sequelize().query<Reading>(
-    `WITH r AS (
-       INSERT INTO readings (digester_id, taken_at, temperature_c, ph, vfa_ta_ratio, titration_a_ml, titration_b_ml,
-                             gas_level_percent, drum_rise_m, gas_used_minutes, note, source, person_id)
-       VALUES ($digesterId, $takenAt, $temperatureC, $ph, $vfaTaRatio, $titrationAMl, $titrationBMl,
-               $gasLevelPercent, $drumRiseM, $gasUsedMinutes, $note, 'manual', $personId)
-       RETURNING *)
-     SELECT ${readingColumns} FROM r LEFT JOIN people p ON p.id = r.person_id`,
-    { type: QueryTypes.SELECT, bind: { ...input } },
-  );
-  return normalise(row!);
+  return sequelize().transaction(async (transaction) => {
+    const { id } = await models().Reading.create({ ...input, source: "manual" }, { transaction });
+    return toReading((await models().Reading.findByPk(id, { include: [enteredBy], transaction }))!);
+  });
 }
 
 /** Readings of one digester taken in [from, to], oldest first; at most `limit` rows. */
 export async function listReadings(digesterId: number, from: Date, to: Date, limit: number): Promise<Reading[]> {
-  const rows = await sequelize().query<Reading>(
-    `SELECT ${readingColumns} FROM readings r LEFT JOIN people p ON p.id = r.person_id
-      WHERE r.digester_id = $digesterId AND r.taken_at BETWEEN $from AND $to
-      ORDER BY r.taken_at, r.id
-      LIMIT $limit`,
-    { type: QueryTypes.SELECT, bind: { digesterId, from, to, limit } },
-  );
-  return rows.map(normalise);
+  const rows = await models().Reading.findAll({
+    where: { digesterId, takenAt: { [Op.between]: [from, to] } },
+    include: [enteredBy],
+    order: [
+      ["takenAt", "ASC"],
+      ["id", "ASC"],
+    ],
+    limit,
+  });
+  return rows.map(toReading);
 }
 
 export interface LatestReadingRow {
@@ -71,6 +83,7 @@ export interface LatestReadingRow {
 
 /** The latest value of each kind of reading per digester, however old (one query for all). */
 export function findLatestReadings(ids: number[], transaction?: Transaction) {
+  // SQL: the latest value of each kind per digester, one LATERAL top-1 per kind in one statement.
   return sequelize().query<LatestReadingRow>(
     `SELECT d.id AS "digesterId",
             t.temperature_c::float8 AS "temperatureC", t.taken_at AS "temperatureAt",
@@ -106,6 +119,7 @@ export async function insertSensorRows(
   personId: number,
   rows: SensorRows,
 ): Promise<number> {
+  // SQL: one INSERT … SELECT from unnest with ON CONFLICT DO NOTHING on the partial unique index.
   const [result] = await sequelize().query<{ inserted: number }>(
     `WITH ins AS (
        INSERT INTO readings (digester_id, taken_at, temperature_c, ph, gas_level_percent, source, person_id)
@@ -118,4 +132,30 @@ export async function insertSensorRows(
     { type: QueryTypes.SELECT, bind: { digesterId, personId, ...rows }, transaction: t },
   );
   return result?.inserted ?? 0;
+}
+
+export interface DailyReadingRow {
+  day: string;
+  temperatureMinC: number | null;
+  temperatureMeanC: number | null;
+  temperatureMaxC: number | null;
+  ph: number | null;
+  gasUsedMinutes: number | null;
+}
+
+/** Readings summarised per calendar day in the neighbourhood's time zone. */
+export function findDailyReadings(digesterId: number, from: Date, timeZone: string) {
+  // SQL: an aggregate per local calendar day (min, mean, max, the day's last pH, a sum).
+  return sequelize().query<DailyReadingRow>(
+    `SELECT (taken_at AT TIME ZONE $timeZone)::date::text AS day,
+            min(temperature_c)::float8 AS "temperatureMinC", avg(temperature_c)::float8 AS "temperatureMeanC",
+            max(temperature_c)::float8 AS "temperatureMaxC",
+            ((array_agg(ph ORDER BY taken_at DESC) FILTER (WHERE ph IS NOT NULL))[1])::float8 AS ph,
+            sum(gas_used_minutes)::float8 AS "gasUsedMinutes"
+       FROM readings
+      WHERE digester_id = $digesterId AND taken_at >= $from
+      GROUP BY 1
+      ORDER BY 1`,
+    { type: QueryTypes.SELECT, bind: { digesterId, from, timeZone } },
+  );
 }

@@ -5,8 +5,8 @@
  */
 import { Passport } from "passport";
 import { Strategy as LocalStrategy } from "passport-local";
-import type { Caller } from "../middleware/handle";
-import { sessionCaller, verifyCredentials } from "../modules/auth/auth.service";
+import type { Caller } from "../../lib/caller";
+import { sessionCaller, verifyCredentials } from "./auth.service";
 
 export const passport = new Passport();
 

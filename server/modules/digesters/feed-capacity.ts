@@ -6,6 +6,9 @@
  */
 import type { Transaction } from "sequelize";
 import {
+  closedPhrase,
+  closedReason,
+  fitsRoom,
   describeMix,
   dilutionWaterPerKg,
   dropOffMix,
@@ -15,11 +18,8 @@ import {
 } from "../../../shared/domain";
 import type { BudgetOverride } from "../../../shared/schemas/feedings";
 import { AppError, conflict } from "../../lib/app-error";
-import type { DigesterToday } from "../digesters/digester-state.service";
-import * as repo from "./feedings.repository";
-
-/** Rounding slack when comparing kg VS sums (stored to 4 decimals). */
-const EPSILON_KG_VS = 1e-6;
+import type { DigesterToday } from "./digester-state.service";
+import * as repo from "./ledger.repository";
 
 /** Today's limit on the day's total load, kg VS: the smallest limit; 0 when the temperature is unknown or the digester is closed. */
 export function todayLimitKgVs(state: DigesterToday): number {
@@ -39,7 +39,7 @@ export const closedDigester = (state: DigesterToday) =>
   new AppError(
     409,
     "digester_closed",
-    `${state.digester.name} is ${state.digester.status}${state.digester.statusReason ? ` (${state.digester.statusReason})` : ""} and takes no scraps. Turn the drop-off away or set the digester active again.`,
+    `${closedPhrase(state.digester.name, closedReason(state.digester)!)} and takes no scraps. Turn the drop-off away or set the digester active again.`,
   );
 
 export interface Reservation {
@@ -63,7 +63,7 @@ export async function reserveToday(
   if (state.closed) throw closedDigester(state);
   const limit = todayLimitKgVs(state);
   const committed = state.committedTodayKgVs;
-  const fits = committed + addKgVs <= limit + EPSILON_KG_VS;
+  const fits = fitsRoom(addKgVs, limit - committed);
   if (!fits && !override) {
     const room = Math.max(0, limit - committed);
     const roomKg = round1(freshKgFromKgVs(room));

@@ -1,6 +1,8 @@
 // ESLint flat config. The import zones enforce HOUSE.md's one-way dependencies:
 // src → shared ← server ← scripts; inside the client app → features → components/lib,
-// and no feature imports another.
+// and no feature imports another; inside the server, server/lib is a leaf and no module
+// reaches into another module's repository (HOUSE.md 8a: each table has one owner, whose
+// service or index.ts the others call).
 import js from "@eslint/js";
 import tseslint from "typescript-eslint";
 import importPlugin from "eslint-plugin-import";
@@ -9,6 +11,7 @@ import globals from "globals";
 import { readdirSync, existsSync } from "node:fs";
 
 const features = existsSync("src/features") ? readdirSync("src/features") : [];
+const serverModules = existsSync("server/modules") ? readdirSync("server/modules") : [];
 
 export default tseslint.config(
   { ignores: ["dist/**", "node_modules/**", ".data/**", "coverage/**", "public/**"] },
@@ -50,6 +53,28 @@ export default tseslint.config(
             },
             { target: "./src/lib", from: ["./src/features", "./src/app", "./src/components"] },
             { target: "./src/features", from: ["./src/app"], message: "Features do not import the app layer." },
+            {
+              target: "./server/lib",
+              from: [
+                "./server/modules",
+                "./server/middleware",
+                "./server/jobs",
+                "./server/app.ts",
+                "./server/routes.ts",
+              ],
+              message: "server/lib is a leaf: it imports no module, middleware or job.",
+            },
+            {
+              target: ["./server/middleware", "./server/jobs", "./server/db"],
+              from: "./server/modules/*/*.repository.ts",
+              message: "Only a table's owning module uses its repository; call the module's service or index.ts.",
+            },
+            ...serverModules.map((m) => ({
+              target: `./server/modules/${m}`,
+              from: serverModules.filter((o) => o !== m).map((o) => `./server/modules/${o}/*.repository.ts`),
+              message:
+                "No module imports another module's repository: call the owner's service or index.ts (README, who owns which table).",
+            })),
             ...features.map((f) => ({
               target: `./src/features/${f}`,
               from: "./src/features",

@@ -20,7 +20,8 @@ export default defineConfig({
         test: {
           name: "server",
           environment: "node",
-          include: ["tests/server/**/*.test.ts"],
+          // The start command's supervisor tests run real processes beside the API tests.
+          include: ["tests/server/**/*.test.ts", "tests/scripts/**/*.test.ts"],
           setupFiles: ["tests/setup/server.ts"],
           fileParallelism: false,
           testTimeout: 30_000,

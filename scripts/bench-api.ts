@@ -80,6 +80,22 @@ const login = await call(
 );
 if (login.status !== 200) throw new Error(`sign-in failed: ${login.status}`);
 csrf = ((await (await call("GET", "/api/auth/csrf")).json()) as { token: string }).token;
+const residentCookie = cookie;
+const residentCsrf = csrf;
+// A second session, the demo steward's, for the steward's day.
+cookie = "";
+const stewardCsrf0 = ((await (await call("GET", "/api/auth/csrf")).json()) as { token: string }).token;
+const stewardLogin = await call(
+  "POST",
+  "/api/auth/login",
+  { email: "steward@example.org", password: "hearthloop-demo" },
+  { "x-csrf-token": stewardCsrf0 },
+);
+if (stewardLogin.status !== 200) throw new Error(`steward sign-in failed: ${stewardLogin.status}`);
+const stewardCookie = cookie;
+const stewardCsrf = ((await (await call("GET", "/api/auth/csrf")).json()) as { token: string }).token;
+cookie = residentCookie;
+csrf = residentCsrf;
 const digesters = (await (await call("GET", "/api/digesters")).json()) as { id: number; status: string }[];
 const open = digesters.find((d) => d.status === "active")!;
 const dropOffBody = JSON.stringify({ digesterId: open.id, bucketCount: 1, bucketLitres: 5, mix: "fruitVeg" });
@@ -93,7 +109,7 @@ let counting = false;
   statements += 1;
   if (traceSql) console.log(`  sql: ${sql.slice(0, 200)}`);
 };
-async function statementsFor(method: string, url: string, body?: string) {
+async function statementsFor(method: string, url: string, body?: string, as = { cookie, csrf }) {
   // Let the previous load run drain (session touches finish after the responses).
   await new Promise((r) => setTimeout(r, 1_500));
   statements = 0;
@@ -101,7 +117,7 @@ async function statementsFor(method: string, url: string, body?: string) {
   if (traceSql) console.log(`${method} ${url}`);
   const res = await fetch(app.url + url, {
     method,
-    headers: { cookie, "x-csrf-token": csrf, "content-type": "application/json" },
+    headers: { cookie: as.cookie, "x-csrf-token": as.csrf, "content-type": "application/json" },
     body,
   });
   await res.text();
@@ -117,6 +133,8 @@ interface Case {
   method?: "GET" | "POST";
   body?: string;
   target: string;
+  /** Signed in as the demo steward instead of the resident. */
+  steward?: boolean;
 }
 const cases: Case[] = [
   { name: "bare Express route (reference)", url: bareServer.url + "/ping", target: "—" },
@@ -132,6 +150,12 @@ const cases: Case[] = [
     target: "≥ 1000 req/s, p99 ≤ 50 ms",
   },
   {
+    name: "GET /api/steward/today (steward)",
+    url: app.url + "/api/steward/today",
+    target: "≥ 1000 req/s, p99 ≤ 50 ms",
+    steward: true,
+  },
+  {
     name: "POST /api/drop-offs (write)",
     url: app.url + "/api/drop-offs",
     method: "POST",
@@ -143,15 +167,16 @@ const cases: Case[] = [
 const rows: string[][] = [];
 let bareRps = 0;
 for (const c of cases) {
+  const as = c.steward ? { cookie: stewardCookie, csrf: stewardCsrf } : { cookie, csrf };
   const counted = c.url.startsWith(app.url)
-    ? await statementsFor(c.method ?? "GET", c.url.slice(app.url.length), c.body)
+    ? await statementsFor(c.method ?? "GET", c.url.slice(app.url.length), c.body, as)
     : undefined;
   const result = await autocannon({
     url: c.url,
     method: c.method ?? "GET",
     connections: 10,
     duration: seconds,
-    headers: { cookie, "x-csrf-token": csrf, "content-type": "application/json" },
+    headers: { cookie: as.cookie, "x-csrf-token": as.csrf, "content-type": "application/json" },
     body: c.body,
   });
   const rps = result.requests.average;

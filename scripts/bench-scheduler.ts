@@ -27,18 +27,8 @@ import {
   collectionRoundsLowerBoundM,
   planCollectionRounds,
 } from "../shared/domain/rounds";
-import { mulberry32 as seededStream } from "../shared/random";
-
-/** Small fast seeded generator (mulberry32), so every run sees the same instances. */
-function mulberry32(seed: number): () => number {
-  let a = seed | 0;
-  return () => {
-    a = (a + 0x6d2b79f5) | 0;
-    let t = Math.imul(a ^ (a >>> 15), 1 | a);
-    t = (t + Math.imul(t ^ (t >>> 7), 61 | t)) ^ t;
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
+// The project's one seeded generator, so every run sees the same instances.
+import { mulberry32 } from "../shared/random";
 
 const CENTRE = { lat: 52.09, lng: 5.12 }; // an invented town; only the latitude matters for the metres
 const at = (eastM: number, northM: number) => destinationPoint(destinationPoint(CENTRE, 90, eastM), 0, northM);
@@ -97,7 +87,7 @@ function assignmentInstance(c: AssignmentCase): AssignmentInput {
  * bikes of 40 kg, 6 digesters with room for `roomRatio` (1.5) × the load.
  */
 function roundsInstance(seed: number, count = 60, side = 4000, roomRatio = 1.5): CollectionRoundsInput {
-  const r = seededStream(seed);
+  const r = mulberry32(seed);
   const stops = Array.from({ length: count }, (_, i) => ({
     householdId: `s${i}`,
     ...at(r() * side, r() * side),

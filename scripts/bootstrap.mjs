@@ -40,6 +40,9 @@ const child = spawn(process.execPath, ["--import", "tsx", scripts[command], ...p
   cwd: root,
   stdio: "inherit",
 });
-// The child handles SIGINT/SIGTERM itself (it stops what it started); forward them.
-for (const signal of ["SIGINT", "SIGTERM"]) process.on(signal, () => child.kill(signal));
+// The child handles SIGINT, SIGTERM and SIGHUP itself (it stops what it started): forward
+// them and wait for it, instead of dying first and leaving it to run on unseen.
+process.stdout.on("error", () => undefined);
+process.stderr.on("error", () => undefined);
+for (const signal of ["SIGINT", "SIGTERM", "SIGHUP"]) process.on(signal, () => child.kill(signal));
 child.on("exit", (code, signal) => process.exit(code ?? (signal ? 1 : 0)));

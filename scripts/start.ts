@@ -1,23 +1,36 @@
 /**
  * `npm start`: the demo on this machine. PostgreSQL (own cluster under .data/), migrations,
  * the invented demo neighbourhood, maildev, the client build and the server, all on loopback.
- * Ctrl-C stops everything this command started.
+ *
+ * A small supervisor: the server runs as a child process and is started again (with back-off)
+ * when it dies; PostgreSQL and maildev keep running meanwhile. Ctrl-C, SIGTERM or SIGHUP stop
+ * all three and remove the lock `.data/start.pid`. A start after a crash of this process (even
+ * `kill -9`) takes over what the earlier one left: its stale lock, its PostgreSQL cluster (which
+ * this start then stops), and stops its maildev or server still holding their ports.
  */
-import { fork, type ChildProcess } from "node:child_process";
-import { mkdirSync, rmSync, writeFileSync } from "node:fs";
+import { fork } from "node:child_process";
+import { mkdirSync } from "node:fs";
 import path from "node:path";
-import { ensureCluster, stopCluster, connectionUrl, readPid, SetupError } from "./lib/postgres";
+import { ensureCluster, stopCluster, connectionUrl, SetupError } from "./lib/postgres";
 import { startMailDev, type MailDevHandle } from "./lib/maildev";
 import { buildClientIfStale } from "./lib/build-client";
 import { demoPassword, demoSignIns, loadDotEnv, log, root } from "./lib/project";
+import { acquireLock, releaseLock } from "./lib/start-lock";
+import { commandLine, listeningPid, stopProcess, workingDir } from "./lib/processes";
+import { ServerSupervisor } from "./lib/supervisor";
+
+// With the terminal gone (SIGHUP) writes to it fail; that must not stop the clean-up.
+process.stdout.on("error", () => undefined);
+process.stderr.on("error", () => undefined);
 
 loadDotEnv();
 const t0 = Date.now();
 const pgPort = Number(process.env.PG_PORT ?? 54329);
 const smtpPort = Number(process.env.MAILDEV_SMTP_PORT ?? 1025);
 const mailWebPort = Number(process.env.MAILDEV_WEB_PORT ?? 1080);
+const dataDir = path.resolve(root, process.env.START_DATA_DIR ?? ".data");
 const cluster = {
-  dataDir: path.join(root, ".data", "pg"),
+  dataDir: path.join(dataDir, "pg"),
   port: pgPort,
   user: "hearthloop",
   password: process.env.PG_PASSWORD ?? "hearthloop-local",
@@ -30,56 +43,62 @@ process.env.PORT ??= "3000";
 process.env.DATABASE_URL ??= connectionUrl(cluster);
 process.env.SMTP_URL ??= `smtp://127.0.0.1:${smtpPort}`;
 process.env.APP_URL ??= `http://${process.env.HOST}:${process.env.PORT}`;
+const appPort = Number(process.env.PORT);
 
-const lockFile = path.join(root, ".data", "start.pid");
+const lockFile = path.join(dataDir, "start.pid");
 let pgBinDir: string | undefined;
-let pgStartedHere = false;
 let maildev: MailDevHandle | undefined;
-let server: ChildProcess | undefined;
+let supervisor: ServerSupervisor | undefined;
 let stopping = false;
 
-async function stopAll(code: number) {
+async function stopAll(code: number, reason?: string) {
   if (stopping) return;
   stopping = true;
-  if (server && server.exitCode === null) {
-    await new Promise<void>((resolve) => {
-      server!.once("exit", () => resolve());
-      server!.kill("SIGTERM");
-      setTimeout(() => server!.kill("SIGKILL"), 10_000).unref();
-    });
-  }
+  if (reason) log(`${reason}: stopping the server, maildev and PostgreSQL…`);
+  await supervisor?.stop();
   await maildev?.stop();
-  if (pgStartedHere && pgBinDir) stopCluster(pgBinDir, cluster.dataDir);
-  rmSync(lockFile, { force: true });
+  // The cluster is this start's to stop, also when an earlier start left it running.
+  if (pgBinDir) stopCluster(pgBinDir, cluster.dataDir);
+  releaseLock(lockFile);
   if (code === 0) log("Stopped.");
   process.exit(code);
 }
 
-function alive(pid: number) {
-  try {
-    process.kill(pid, 0);
-    return true;
-  } catch {
-    return false;
-  }
+/** A process from this folder still holding one of our ports: the server or maildev of an earlier start. */
+async function stopLeftoverOn(port: number, what: string, marker: RegExp) {
+  const pid = listeningPid(port);
+  if (!pid || pid === process.pid) return;
+  const cmd = commandLine(pid) ?? "";
+  const cwd = workingDir(pid);
+  const fromHere = cmd.includes(root) || (cwd !== undefined && path.resolve(cwd) === root);
+  if (!marker.test(cmd) || !fromHere) return;
+  log(`Stopping the ${what} an earlier start left running on port ${port} (process ${pid})…`);
+  await stopProcess(pid, 12_000);
 }
 
 async function main() {
-  mkdirSync(path.dirname(lockFile), { recursive: true });
-  const other = readPid(lockFile);
-  if (other && other !== process.pid && alive(other)) {
+  mkdirSync(dataDir, { recursive: true });
+  const lock = acquireLock(lockFile, root);
+  if (!lock.acquired) {
     console.error(
-      `Hearthloop is already running from this folder (process ${other}) at ${process.env.APP_URL}. Stop it with Ctrl-C first.`,
+      `Hearthloop is already running from this folder (process ${lock.holder.pid}) at ${process.env.APP_URL}. Stop it with Ctrl-C first.`,
     );
     process.exit(1);
   }
-  writeFileSync(lockFile, String(process.pid));
-  process.on("SIGINT", () => void stopAll(0));
-  process.on("SIGTERM", () => void stopAll(0));
+  for (const signal of ["SIGINT", "SIGTERM", "SIGHUP"] as const) {
+    process.on(signal, () => void stopAll(0, signal));
+  }
+  if (lock.stale) log(`Taking over from an earlier start (process ${lock.stale.pid}) that did not stop cleanly.`);
+
+  await stopLeftoverOn(appPort, "server", /server[/\\]index\.ts/);
+  await stopLeftoverOn(mailWebPort, "maildev", /maildev/);
+  await stopLeftoverOn(smtpPort, "maildev", /maildev/);
 
   const pg = await ensureCluster(cluster, log);
   pgBinDir = pg.binDir;
-  pgStartedHere = pg.startedHere;
+  if (pg.leftover) {
+    log(`PostgreSQL was left running by an earlier start (process ${pg.leftover.pid}); this start takes it over.`);
+  }
   log(`PostgreSQL ready on 127.0.0.1:${pgPort}.`);
 
   // Migrate and seed in this process; the server child gets the same environment.
@@ -99,22 +118,18 @@ async function main() {
 
   buildClientIfStale(log);
 
-  server = fork(path.join(root, "server", "index.ts"), [], {
-    cwd: root,
-    execArgv: ["--import", "tsx"],
-    env: { ...process.env, CLIENT_DIST: path.join(root, "dist") },
-    stdio: ["ignore", "inherit", "inherit", "ipc"],
+  supervisor = new ServerSupervisor({
+    log,
+    spawn: () =>
+      fork(path.join(root, "server", "index.ts"), [], {
+        cwd: root,
+        execArgv: ["--import", "tsx"],
+        env: { ...process.env, CLIENT_DIST: path.join(root, "dist") },
+        stdio: ["ignore", "inherit", "inherit", "ipc"],
+      }),
   });
-  await new Promise<void>((resolve, reject) => {
-    server!.on("message", (m: { type?: string }) => m?.type === "listening" && resolve());
-    server!.once("exit", (code) => reject(new Error(`the server exited with code ${code} before listening`)));
-  });
-  server.on("exit", (code) => {
-    if (!stopping) {
-      console.error(`The server stopped unexpectedly (exit code ${code}).`);
-      void stopAll(1);
-    }
-  });
+  if (stopping) return;
+  await supervisor.start();
 
   const seconds = ((Date.now() - t0) / 1000).toFixed(1);
   console.log(`
@@ -131,6 +146,7 @@ ${demoSignIns.map((d) => `      ${d.role.padEnd(12)} ${d.email}`).join("\n")}
 }
 
 main().catch(async (err) => {
+  if (stopping) return;
   const message = err instanceof SetupError ? err.message : (err as Error).message;
   console.error(`Hearthloop could not start: ${message}`);
   await stopAll(1);

@@ -136,6 +136,7 @@ async function cleanup() {
 
 process.on("SIGINT", () => void cleanup().then(() => process.exit(130)));
 process.on("SIGTERM", () => void cleanup().then(() => process.exit(143)));
+process.on("SIGHUP", () => void cleanup().then(() => process.exit(129)));
 
 main()
   .catch((err) => {

@@ -14,6 +14,8 @@ import { apiNotFound, errorHandler } from "./middleware/error-handler";
 import { apiRouter } from "./routes";
 import { redactUrl, securityErrorLogger } from "./lib/security-log";
 import { csrfProtection } from "./middleware/csrf";
+import { inputGuard } from "./middleware/input-guard";
+import { permissionsPolicy } from "./middleware/permissions-policy";
 import { passportMiddleware, sessionLifetime, sessionMiddleware } from "./middleware/session";
 
 export interface AppOptions {
@@ -52,6 +54,7 @@ export function createApp(options: AppOptions = {}): Express {
       strictTransportSecurity: e.NODE_ENV === "production",
     }),
   );
+  app.use(permissionsPolicy);
 
   app.use(
     pinoHttp({
@@ -77,7 +80,8 @@ export function createApp(options: AppOptions = {}): Express {
     res.set("Cache-Control", "no-store");
     next();
   });
-  app.use("/api", express.json({ limit: "100kb", strict: true }));
+  // strict: false so that a body of null, a number or a string reaches inputGuard, which names the problem.
+  app.use("/api", express.json({ limit: "100kb", strict: false }), inputGuard);
   // Sessions (PostgreSQL), then who is signed in, then the absolute timeout, then CSRF.
   app.use("/api", sessionMiddleware(), ...passportMiddleware(), sessionLifetime, csrfProtection);
   app.use("/api", apiRouter());

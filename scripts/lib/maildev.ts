@@ -59,7 +59,8 @@ export async function startMailDev(
     child,
     stop: () =>
       new Promise<void>((resolve) => {
-        if (child.exitCode !== null) return resolve();
+        // Already gone (Ctrl-C reaches maildev too): exitCode stays null when a signal ended it.
+        if (child.exitCode !== null || child.signalCode !== null) return resolve();
         child.once("exit", () => resolve());
         child.kill("SIGTERM");
         setTimeout(() => child.kill("SIGKILL"), 3_000).unref();

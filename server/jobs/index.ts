@@ -2,6 +2,7 @@
 import { startHousekeepingJob } from "./housekeeping.job";
 import { startOutboxJob } from "./outbox.job";
 import { startRemindersJob } from "./reminders.job";
+import { startResetRequestsJob } from "./reset-requests.job";
 
 const stops: Array<() => Promise<void> | void> = [];
 
@@ -11,6 +12,7 @@ export function startJobs() {
   stops.push(startOutboxJob());
   stops.push(startHousekeepingJob());
   stops.push(startRemindersJob());
+  stops.push(startResetRequestsJob());
 }
 
 export async function stopJobs() {

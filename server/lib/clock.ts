@@ -6,14 +6,30 @@ export function localDate(at: Date, timeZone = env().TIMEZONE): string {
   return new Intl.DateTimeFormat("en-CA", { timeZone, year: "numeric", month: "2-digit", day: "2-digit" }).format(at);
 }
 
-/** The ISO date `days` after `isoDate` (negative for before). */
-export function addDays(isoDate: string, days: number): string {
-  const d = new Date(`${isoDate}T00:00:00Z`);
-  d.setUTCDate(d.getUTCDate() + days);
-  return d.toISOString().slice(0, 10);
+export { addDays, daysBetween } from "../../shared/domain/calendar";
+
+/** Milliseconds the time zone is ahead of UTC at an instant. */
+function zoneOffsetMs(at: number, timeZone: string): number {
+  const parts = new Intl.DateTimeFormat("en-GB", {
+    timeZone,
+    hourCycle: "h23",
+    year: "numeric",
+    month: "2-digit",
+    day: "2-digit",
+    hour: "2-digit",
+    minute: "2-digit",
+    second: "2-digit",
+  }).formatToParts(new Date(at));
+  const get = (type: string) => Number(parts.find((p) => p.type === type)?.value ?? 0);
+  const asUtc = Date.UTC(get("year"), get("month") - 1, get("day"), get("hour"), get("minute"), get("second"));
+  return asUtc - Math.floor(at / 1000) * 1000;
 }
 
-/** Whole days from `from` to `to` (ISO dates). */
-export function daysBetween(from: string, to: string): number {
-  return Math.round((Date.parse(`${to}T00:00:00Z`) - Date.parse(`${from}T00:00:00Z`)) / 86_400_000);
+/** The instant a calendar day (YYYY-MM-DD) begins in the neighbourhood's time zone. */
+export function startOfLocalDay(isoDate: string, timeZone = env().TIMEZONE): Date {
+  const midnightUtc = Date.parse(`${isoDate}T00:00:00Z`);
+  // Two passes settle days on which the offset changes (summer time starts or ends).
+  let guess = midnightUtc - zoneOffsetMs(midnightUtc, timeZone);
+  guess = midnightUtc - zoneOffsetMs(guess, timeZone);
+  return new Date(guess);
 }

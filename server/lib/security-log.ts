@@ -12,6 +12,7 @@ export type SecurityEvent =
   | "sign_in_succeeded"
   | "sign_in_failed"
   | "sign_in_throttled"
+  | "rate_limited"
   | "signed_out"
   | "session_expired"
   | "forbidden"

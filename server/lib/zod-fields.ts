@@ -1,8 +1,12 @@
 import type { z } from "zod";
+import { fieldMap, type FieldMap } from "./app-error";
 
-/** Turns zod issues into `{ field: message }`, naming unknown keys one by one. */
-export function zodFields(error: z.ZodError, prefix?: string): Record<string, string> {
-  const fields: Record<string, string> = {};
+/**
+ * Turns zod issues into `{ field: message }`, naming unknown keys one by one. The map has no
+ * prototype, so an unknown key named `__proto__` is listed like any other.
+ */
+export function zodFields(error: z.ZodError, prefix?: string): FieldMap {
+  const fields = fieldMap();
   for (const issue of error.issues) {
     if (issue.code === "unrecognized_keys") {
       for (const key of issue.keys) {

@@ -7,17 +7,12 @@
  */
 import type { NextFunction, Request, RequestHandler, Response } from "express";
 import type { z } from "zod";
-import { AppError } from "../lib/app-error";
+import { fieldMap, invalidFields, type FieldMap } from "../lib/app-error";
 import { zodFields } from "../lib/zod-fields";
 
-export interface Caller {
-  id: number;
-  email: string;
-  name: string;
-  roles: string[];
-  stewardOf: number[];
-  householdId: number | null;
-}
+import type { Caller } from "../lib/caller";
+
+export type { Caller } from "../lib/caller";
 
 type Schemas = { body?: z.ZodType; query?: z.ZodType; params?: z.ZodType };
 type Out<S, K extends keyof S> = S[K] extends z.ZodType ? z.output<S[K]> : undefined;
@@ -42,9 +37,10 @@ export interface Reply {
   type?: string;
 }
 
-function parsePart(schema: z.ZodType | undefined, value: unknown, part: string, fields: Record<string, string>) {
+function parsePart(schema: z.ZodType | undefined, value: unknown, part: string, fields: FieldMap) {
   if (!schema) return undefined;
-  const result = schema.safeParse(value ?? (part === "body" ? {} : value));
+  // No body at all reads as {} (so defaults apply); a JSON `null` never gets here (input-guard refuses it).
+  const result = schema.safeParse(value === undefined && part === "body" ? {} : value);
   if (!result.success) {
     Object.assign(fields, zodFields(result.error, part === "body" ? undefined : part));
     return undefined;
@@ -58,19 +54,11 @@ export function handle<S extends Schemas>(
 ): RequestHandler {
   return async (req: Request, res: Response, next: NextFunction) => {
     try {
-      const fields: Record<string, string> = {};
+      const fields = fieldMap();
       const body = parsePart(schemas.body, req.body, "body", fields);
       const query = parsePart(schemas.query, req.query, "query", fields);
       const params = parsePart(schemas.params, req.params, "params", fields);
-      if (Object.keys(fields).length > 0) {
-        const names = Object.keys(fields);
-        throw new AppError(
-          400,
-          "invalid_input",
-          `Please check ${names.length === 1 ? "this field" : "these fields"}: ${names.join(", ")}.`,
-          fields,
-        );
-      }
+      if (Object.keys(fields).length > 0) throw invalidFields(fields);
       const reply = await handler({
         body,
         query,

@@ -14,9 +14,10 @@ import type { z } from "zod";
 import { env, type Env } from "../config/env";
 import { sequelize } from "../db/sequelize";
 import { logger } from "../lib/logger";
-import { passport } from "../lib/passport";
+import { passport } from "../modules/auth/passport";
 import { logSecurityEvent } from "../lib/security-log";
 import type { SessionInfo } from "../../shared/schemas/auth";
+import { rememberDevice } from "../modules/auth/known-device";
 import { csrfTokenFor } from "./csrf";
 import { handle, type Caller, type HandlerInput, type Reply } from "./handle";
 
@@ -91,7 +92,7 @@ export function sessionMiddleware(): RequestHandler {
     pruneSessionInterval: false,
     errorLog: (...args: unknown[]) => logger.warn({ detail: args.map(String).join(" ") }, "session store error"),
   });
-  return session({
+  const sessions = session({
     name,
     secret: e.SESSION_SECRET,
     store,
@@ -101,6 +102,32 @@ export function sessionMiddleware(): RequestHandler {
     proxy: e.TRUST_PROXY ? true : undefined,
     cookie: { ...cookie, maxAge: IDLE_TIMEOUT_MS },
   });
+  return (req, res, next) => {
+    hookLateCookies(res);
+    sessions(req, res, next);
+  };
+}
+
+const lateCookies = new WeakMap<Response, Array<() => void>>();
+
+/**
+ * express-session adds its cookie when the headers are written (it wraps `writeHead`). Wrapping
+ * it first, here, runs these setters just after it, so the session cookie stays the first
+ * Set-Cookie of an answer and the known-device cookie follows it.
+ */
+function hookLateCookies(res: Response) {
+  const writeHead = res.writeHead;
+  res.writeHead = function (this: Response, ...args: Parameters<Response["writeHead"]>) {
+    for (const set of lateCookies.get(res) ?? []) set();
+    lateCookies.delete(res);
+    return writeHead.apply(this, args);
+  } as Response["writeHead"];
+}
+
+function setAfterSessionCookie(res: Response, set: () => void) {
+  const pending = lateCookies.get(res);
+  if (pending) pending.push(set);
+  else lateCookies.set(res, [set]);
 }
 
 /** passport.initialize() + passport.session(): sets req.user from the session's person id. */
@@ -153,15 +180,20 @@ export function sessionHeaders(current: SessionInfo | undefined): Record<string,
 export interface SessionControl {
   /** Runs passport-local on the request body: the person, or false for a wrong e-mail or password. */
   authenticate(): Promise<Caller | false>;
-  /** A new session id (fixation defence), the person in it, and the sign-in time. */
+  /**
+   * A new session id (fixation defence), the person in it, and the sign-in time; this browser
+   * becomes a known device for the account (its failed sign-ins count apart from strangers').
+   */
   signIn(caller: Caller): Promise<void>;
+  /** Makes this browser a known device for the account with this e-mail (after a password reset from it). */
+  rememberDevice(email: string): void;
   /** Deletes the session row and clears the cookie. */
   signOut(): Promise<void>;
   /** Time left; undefined when nobody is signed in. */
   info(): SessionInfo | undefined;
   /** The session id, to spare the current session when ending a person's others. Never log it. */
   id(): string | undefined;
-  /** The CSRF token of this session (created on first use). */
+  /** The CSRF token: the session's (created on first use), or a visitor's signed cookie pair that stores nothing. */
   csrfToken(): string;
   /** Writes the session row now, moving its idle end ("stay signed in"). */
   keepAlive(): void;
@@ -181,6 +213,7 @@ function control(req: Request, res: Response, next: NextFunction): SessionContro
         req.login(caller, (err) => {
           if (err) return reject(err);
           req.session.signedInAt = Date.now();
+          setAfterSessionCookie(res, () => rememberDevice(res, caller.email));
           resolve();
         });
       }),
@@ -195,9 +228,10 @@ function control(req: Request, res: Response, next: NextFunction): SessionContro
           resolve();
         });
       }),
+    rememberDevice: (email) => setAfterSessionCookie(res, () => rememberDevice(res, email)),
     info: () => (req.user && req.session?.signedInAt ? info(req.session.signedInAt) : undefined),
     id: () => (req.session ? req.sessionID : undefined),
-    csrfToken: () => csrfTokenFor(req),
+    csrfToken: () => csrfTokenFor(req, res),
     keepAlive: () => {
       if (req.session) req.session.keptAliveAt = Date.now();
     },

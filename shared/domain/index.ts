@@ -16,3 +16,6 @@ export * from "./geo";
 export * from "./assignment";
 export * from "./rounds";
 export * from "./safety";
+export * from "./impact";
+export * from "./room";
+export * from "./calendar";

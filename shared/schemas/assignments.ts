@@ -4,6 +4,7 @@
  * are plain `z.object`s (an added field does not break an older client) that the API client parses.
  */
 import { z } from "zod";
+import { oneLineText } from "./common";
 
 const id = z
   .number({ error: "Must be a whole number id." })
@@ -38,9 +39,9 @@ export const AssignmentChangeSchema = z
 /** `POST /api/assignments/apply`. */
 export const ApplyRequestSchema = z
   .object({
-    version: z.string({ error: "Send the proposal's version." }).min(1).max(128),
+    version: oneLineText("Send the proposal's version.").min(1).max(128),
     changes: z.array(AssignmentChangeSchema).max(20_000, "Too many changes."),
-    reason: z.string().trim().max(300, "Use at most 300 characters.").optional(),
+    reason: oneLineText("The reason must be text.").trim().max(300, "Use at most 300 characters.").optional(),
   })
   .strict();
 export type ApplyRequest = z.infer<typeof ApplyRequestSchema>;
@@ -84,16 +85,93 @@ export const ProposalDigesterSchema = z.object({
 });
 export type ProposalDigester = z.infer<typeof ProposalDigesterSchema>;
 
-/** A household the proposal could not place, with why and what it could do instead. */
+/** Why a household could not be placed (the code of an unplaced household; see shared/domain/assignment). */
+export const UnplacedReasonSchema = z.enum(["noLocation", "invalidAmount", "noDigesterWithinReach", "noRoom"]);
+
+/** What an unplaced household can do instead: another day at a digester (metres from home), or compost at home. */
+export const SuggestedActionSchema = z.discriminatedUnion("code", [
+  z.object({ code: z.literal("anotherDay"), digesterId: z.number(), digesterName: z.string(), distanceM: z.number() }),
+  z.object({ code: z.literal("compostAtHome") }),
+]);
+export type SuggestedAction = z.infer<typeof SuggestedActionSchema>;
+
+/**
+ * A household the proposal could not place: `reason` is the code and `suggestedAction` the
+ * code of what it could do instead, with their parameters (`walkingLimitM` in metres, set for
+ * `noDigesterWithinReach` when the walking limit is what kept it out); `message` and
+ * `suggestion` are the coordinator's words for them (shared/words/assignment-board.ts).
+ */
 export const ProposalUnplacedSchema = z.object({
   householdId: z.number(),
   householdName: z.string(),
   weeklyKg: z.number(),
-  reason: z.string(),
+  reason: UnplacedReasonSchema,
+  walkingLimitM: z.number().nullable(),
+  suggestedAction: SuggestedActionSchema,
   message: z.string(),
   suggestion: z.string(),
 });
 export type ProposalUnplaced = z.infer<typeof ProposalUnplacedSchema>;
+
+const named = { id: z.number(), name: z.string() };
+
+/**
+ * Something worth knowing about a proposal, as a code with its parameters: ids are the API's,
+ * names resolved, distances metres, amounts kg fresh scraps a week, `gapToLpBound` a fraction.
+ * The codes the solver gives (shared/domain/assignment/messages.ts) keep their meaning; the
+ * others are the proposal's own (unknown ids in the request, summaries). `Proposal.messages[i]`
+ * is the coordinator's words for `Proposal.notes[i]`.
+ */
+export const ProposalNoteSchema = z.discriminatedUnion("code", [
+  z.object({ code: z.literal("excludedDigesterUnknown"), digesterId: z.number() }),
+  z.object({ code: z.literal("pinHouseholdUnknown"), householdId: z.number() }),
+  z.object({
+    code: z.literal("pinsContradictory"),
+    household: z.object(named),
+    keptDigester: z.object(named),
+    droppedDigester: z.object(named),
+  }),
+  z.object({
+    code: z.literal("pinContradiction"),
+    kind: z.enum(["unknownDigester", "digesterUnavailable", "pinsOverloadDigester"]),
+    household: z.object(named),
+    /** The pinned digester; `name` is null when it does not exist. */
+    digester: z.object({ id: z.number(), name: z.string().nullable() }),
+  }),
+  z.object({ code: z.literal("walkingLimitInvalid"), walkingLimitM: z.number().nullable() }),
+  z.object({ code: z.literal("duplicateDigester"), digester: z.object(named) }),
+  z.object({ code: z.literal("duplicateHousehold"), household: z.object(named) }),
+  z.object({ code: z.literal("digesterWithoutLocation"), digester: z.object(named) }),
+  z.object({ code: z.literal("digesterRoomInvalid"), digester: z.object(named), weeklyRoomKg: z.number().nullable() }),
+  z.object({
+    code: z.literal("pinBeyondWalkingLimit"),
+    household: z.object(named),
+    digester: z.object(named),
+    distanceM: z.number(),
+    walkingLimitM: z.number(),
+  }),
+  z.object({ code: z.literal("solverGaveNoPlan"), solverStatus: z.string(), gapBounded: z.boolean() }),
+  z.object({ code: z.literal("solverFailedOnPart"), error: z.string() }),
+  z.object({ code: z.literal("timeLimitBeforeProof"), solverStatuses: z.array(z.string()) }),
+  z.object({
+    code: z.literal("approximatePlan"),
+    householdsToPlace: z.number(),
+    gapToLpBound: z.number().nullable(),
+    candidatesPerHousehold: z.number(),
+    pairsAddedByPricing: z.number(),
+  }),
+  z.object({ code: z.literal("householdsWithoutLocation"), households: z.array(z.object(named)) }),
+  z.object({
+    code: z.literal("walkingLimitUnreachable"),
+    walkingLimitM: z.number(),
+    householdCount: z.number(),
+    /** The smallest limit that reaches every household left out, metres. */
+    neededM: z.number(),
+  }),
+  z.object({ code: z.literal("noDigesterTakingScraps") }),
+  z.object({ code: z.literal("digestersWithoutRoom"), digesters: z.array(z.object(named)) }),
+]);
+export type ProposalNote = z.infer<typeof ProposalNoteSchema>;
 
 /** `POST /api/assignments/proposals`: distances in metres, `solveMs` in milliseconds. */
 export const ProposalSchema = z.object({
@@ -101,7 +179,9 @@ export const ProposalSchema = z.object({
   assignments: z.array(ProposalAssignmentSchema),
   digesters: z.array(ProposalDigesterSchema),
   unplaced: z.array(ProposalUnplacedSchema),
+  /** The coordinator's words for `notes`, one each, in the same order. */
   messages: z.array(z.string()),
+  notes: z.array(ProposalNoteSchema),
   totalDistanceM: z.number(),
   baselineDistanceM: z.number(),
   currentDistanceM: z.number(),

@@ -5,6 +5,7 @@
  * `roles` or `status` into a body that does not ask for them.
  */
 import { z } from "zod";
+import { oneLineText } from "./common";
 
 export const ROLES = ["resident", "steward", "coordinator", "gardener"] as const;
 export const RoleSchema = z.enum(ROLES);
@@ -33,8 +34,7 @@ export const EmailSchema = z
   .max(254, "An e-mail address has at most 254 characters.")
   .pipe(z.email("Enter an e-mail address like name@example.org."));
 
-export const PersonNameSchema = z
-  .string({ error: "Enter a name." })
+export const PersonNameSchema = oneLineText("Enter a name.")
   .trim()
   .min(1, "Enter a name.")
   .max(120, "Use at most 120 characters.");

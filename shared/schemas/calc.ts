@@ -5,6 +5,7 @@
  * `shared/domain/calculators.ts`.
  */
 import { z } from "zod";
+import { noteText } from "./common";
 import { FEED_BINDINGS, FEED_LIMIT_NAMES, FEED_WARNING_CODES, FEED_WARNING_SEVERITIES } from "../domain/feed-budget";
 
 /** A finite number in [min, max]; every failure (missing, wrong type, out of range) names the allowed range. */
@@ -29,8 +30,7 @@ export const FeedBudgetRequestSchema = z
       OLR_REF_MAX_WITH_REASON,
       "kg VS/m³/day (above 2.0 only with olrOverrideReason)",
     ).optional(),
-    olrOverrideReason: z
-      .string({ error: "Override reason must be text of 3 to 300 characters." })
+    olrOverrideReason: noteText("Override reason must be text of 3 to 300 characters.")
       .trim()
       .min(3, { error: "Override reason must be text of 3 to 300 characters." })
       .max(300, { error: "Override reason must be text of 3 to 300 characters." })

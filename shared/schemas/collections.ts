@@ -5,14 +5,7 @@
  * client) that the API client parses.
  */
 import { z } from "zod";
-
-const isoDate = z
-  .string({ error: "Give the date as YYYY-MM-DD." })
-  .regex(/^\d{4}-\d{2}-\d{2}$/, "Give the date as YYYY-MM-DD.")
-  .refine(
-    (s) => !Number.isNaN(Date.parse(`${s}T00:00:00Z`)) && new Date(`${s}T00:00:00Z`).toISOString().startsWith(s),
-    "That date does not exist.",
-  );
+import { IsoDateSchema as isoDate } from "./common";
 
 /** Kilograms a bucket is counted as when planning rounds: 10 L × 0.5 kg/L (the feed budget's default bucket). */
 export const COLLECTION_BUCKET_KG = 5;

@@ -1,6 +1,7 @@
 import { z } from "zod";
 import { FEED_BINDINGS } from "../domain/feed-budget";
 import { FeedWarningSchema } from "./calc";
+import { isoDate, noteText, oneLineText } from "./common";
 
 export const DigesterStatusSchema = z.enum(["active", "resting", "offline"]);
 export type DigesterStatus = z.infer<typeof DigesterStatusSchema>;
@@ -67,8 +68,6 @@ function profileNumber(label: string, min: number, max: number, unit: string) {
   return z.number({ error: message }).min(min, { error: message }).max(max, { error: message });
 }
 
-const profileDate = (label: string) => z.iso.date({ error: `${label}: give the day as YYYY-MM-DD.` });
-
 /** The settings a steward keeps for their digester. */
 export const DigesterProfileSchema = z.object({
   id: z.number().int(),
@@ -101,14 +100,8 @@ export type DigesterProfile = z.infer<typeof DigesterProfileSchema>;
  */
 export const UpdateDigesterProfileSchema = z
   .object({
-    name: z
-      .string({ error: "Give a name." })
-      .trim()
-      .min(1, "Give a name.")
-      .max(120, "Use at most 120 characters.")
-      .optional(),
-    siteDescription: z
-      .string({ error: "The description must be text." })
+    name: oneLineText("Give a name.").trim().min(1, "Give a name.").max(120, "Use at most 120 characters.").optional(),
+    siteDescription: noteText("The description must be text.")
       .trim()
       .max(500, "Use at most 500 characters.")
       .optional(),
@@ -121,11 +114,10 @@ export const UpdateDigesterProfileSchema = z
     insulation: z
       .enum(DIGESTER_INSULATIONS, { error: `Insulation must be one of ${DIGESTER_INSULATIONS.join(", ")}.` })
       .optional(),
-    startedOn: profileDate("Start date").optional(),
-    gasFirstBurnedOn: profileDate("Gas first burned").nullable().optional(),
+    startedOn: isoDate("Start date").optional(),
+    gasFirstBurnedOn: isoDate("Gas first burned").nullable().optional(),
     olrRefKgVsPerM3Day: profileNumber("Reference loading rate", 0.1, PROFILE_OLR_REF_MAX, "kg VS/m³/day").optional(),
-    olrOverrideReason: z
-      .string({ error: "The reason must be text." })
+    olrOverrideReason: noteText("The reason must be text.")
       .trim()
       .max(500, "Use at most 500 characters.")
       .nullable()
@@ -143,8 +135,7 @@ export type UpdateDigesterProfileParsed = z.output<typeof UpdateDigesterProfileS
 export const SetDigesterStatusSchema = z
   .object({
     status: DigesterStatusSchema,
-    reason: z
-      .string({ error: "The reason must be text." })
+    reason: noteText("The reason must be text.")
       .trim()
       .max(500, "Use at most 500 characters.")
       .nullish()

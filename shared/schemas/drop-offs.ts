@@ -5,6 +5,9 @@
  */
 import { z } from "zod";
 import { DROP_OFF_MIXES } from "../domain/drop-offs";
+import { IsoDateSchema, noteText } from "./common";
+
+export { IsoDateSchema };
 
 export const DropOffMixSchema = z.enum(DROP_OFF_MIXES, {
   error: `Choose what is in it: one of ${DROP_OFF_MIXES.join(", ")}.`,
@@ -68,14 +71,6 @@ const citrusPercent = z
   .max(100, { error: "Citrus share must be a number from 0 to 100 %." })
   .transform(roundedTo(2));
 
-export const IsoDateSchema = z
-  .string({ error: "Give the day as YYYY-MM-DD." })
-  .regex(/^\d{4}-\d{2}-\d{2}$/, "Give the day as YYYY-MM-DD.")
-  .refine(
-    (s) => !Number.isNaN(Date.parse(`${s}T00:00:00Z`)) && new Date(`${s}T00:00:00Z`).toISOString().startsWith(s),
-    "This is not a calendar day.",
-  );
-
 /**
  * `POST /api/drop-offs`. Buckets (count and litres) or a weight; with both, the weight wins and
  * the drop-off is marked "weighed". `forDate` is today (default) or tomorrow in the
@@ -93,8 +88,7 @@ export const CreateDropOffSchema = z
     weightKg: weightKg.optional(),
     mix: DropOffMixSchema.default("mixed"),
     citrusPercent: citrusPercent.default(0),
-    note: z
-      .string({ error: "The note must be text." })
+    note: noteText("The note must be text.")
       .trim()
       .max(MAX_NOTE_LENGTH, `Use at most ${MAX_NOTE_LENGTH} characters.`)
       .optional()

@@ -5,6 +5,7 @@
  */
 import { z } from "zod";
 import { DROP_OFF_MIXES } from "../domain/drop-offs";
+import { IsoDateSchema, noteText } from "./common";
 
 export const FeedMixSchema = z.enum(DROP_OFF_MIXES, {
   error: `Choose what went in: one of ${DROP_OFF_MIXES.join(", ")}.`,
@@ -20,8 +21,7 @@ export const MAX_WATER_LITRES = 5000;
 /** `override: { reason }`: the steward's recorded reason for going beyond today's budget. */
 export const BudgetOverrideSchema = z
   .object({
-    reason: z
-      .string({ error: "Say why this goes beyond today's budget." })
+    reason: noteText("Say why this goes beyond today's budget.")
       .trim()
       .min(3, `Say why this goes beyond today's budget (3 to ${MAX_OVERRIDE_REASON_LENGTH} characters).`)
       .max(MAX_OVERRIDE_REASON_LENGTH, `Use at most ${MAX_OVERRIDE_REASON_LENGTH} characters.`),
@@ -35,8 +35,7 @@ export const WaterLitresSchema = z
   .max(MAX_WATER_LITRES, { error: `Dilution water must be a number from 0 to ${MAX_WATER_LITRES} litres.` })
   .transform((v) => Math.round(v * 100) / 100);
 
-const note = z
-  .string({ error: "The note must be text." })
+const note = noteText("The note must be text.")
   .trim()
   .max(MAX_FEEDING_NOTE_LENGTH, `Use at most ${MAX_FEEDING_NOTE_LENGTH} characters.`)
   .nullish()
@@ -63,7 +62,7 @@ export const CreateFeedingSchema = z
       .transform((v) => Math.round(v * 100) / 100)
       .default(0),
     waterLitres: WaterLitresSchema.optional(),
-    fedOn: z.iso.date({ error: "Give the day as YYYY-MM-DD." }).optional(),
+    fedOn: IsoDateSchema.optional(),
     note,
     override: BudgetOverrideSchema.optional(),
   })
@@ -74,8 +73,8 @@ export type CreateFeedingParsed = z.output<typeof CreateFeedingSchema>;
 /** `GET /api/digesters/:id/feedings?from=&to=` (and the CSV export): days, default the last 60. */
 export const FeedingRangeQuerySchema = z
   .object({
-    from: z.iso.date({ error: "Give the day as YYYY-MM-DD." }).optional(),
-    to: z.iso.date({ error: "Give the day as YYYY-MM-DD." }).optional(),
+    from: IsoDateSchema.optional(),
+    to: IsoDateSchema.optional(),
   })
   .strict();
 export type FeedingRangeQuery = z.output<typeof FeedingRangeQuerySchema>;

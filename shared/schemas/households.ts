@@ -6,6 +6,7 @@
  */
 import { z } from "zod";
 import { EmailSchema } from "./auth";
+import { oneLineText } from "./common";
 
 const latitude = z
   .number({ error: "Latitude must be a number from -90 to 90 degrees." })
@@ -20,14 +21,12 @@ const longitude = z
 export const LocationInputSchema = z.object({ lat: latitude, lng: longitude }).strict();
 export type LocationInput = z.infer<typeof LocationInputSchema>;
 
-export const HouseholdNameSchema = z
-  .string({ error: "Enter a name for your household." })
+export const HouseholdNameSchema = oneLineText("Enter a name for your household.")
   .trim()
   .min(1, "Enter a name for your household, such as your family name.")
   .max(120, "Use at most 120 characters.");
 
-export const AddressTextSchema = z
-  .string({ error: "The address must be text." })
+export const AddressTextSchema = oneLineText("The address must be text.")
   .trim()
   .max(200, "Use at most 200 characters.");
 
@@ -63,7 +62,7 @@ export type UpdateHousehold = z.infer<typeof UpdateHouseholdSchema>;
 export const AddMemberSchema = z
   .object({
     email: EmailSchema,
-    name: z.string({ error: "The name must be text." }).trim().max(120, "Use at most 120 characters.").default(""),
+    name: oneLineText("The name must be text.").trim().max(120, "Use at most 120 characters.").default(""),
   })
   .strict();
 export type AddMember = z.input<typeof AddMemberSchema>;

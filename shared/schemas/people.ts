@@ -4,6 +4,7 @@
  */
 import { z } from "zod";
 import { EmailSchema, PersonNameSchema, RoleSchema } from "./auth";
+import { oneLineText } from "./common";
 
 export const PersonStatusSchema = z.enum(["invited", "active", "disabled"]);
 export type PersonStatus = z.infer<typeof PersonStatusSchema>;
@@ -39,7 +40,7 @@ export const PersonIdParamsSchema = z.object({
 export const InvitePersonSchema = z
   .object({
     email: EmailSchema,
-    name: z.string().trim().max(120, "Use at most 120 characters.").default(""),
+    name: oneLineText("The name must be text.").trim().max(120, "Use at most 120 characters.").default(""),
     roles: RolesSchema.min(1, "Give the person at least one role."),
     householdId: z.number().int().positive().max(2_147_483_647).nullable().optional(),
   })

@@ -5,6 +5,9 @@
  * (0001-core.ts) and, for the sensor columns, issue 5 (−40…90 °C, pH 0…14, gas 0…100 %).
  */
 import { z } from "zod";
+import { IsoDateOrDateTimeSchema, IsoDateTimeSchema, noteText } from "./common";
+
+export { IsoDateTimeSchema };
 
 /** A finite number in [min, max]; every failure names the field and the allowed range. */
 function numberIn(label: string, min: number, max: number, unit: string) {
@@ -28,12 +31,6 @@ export const MAX_READING_NOTE_LENGTH = 500;
 
 /** How far ahead of the server's clock a reading may be stamped (phone clocks drift). */
 export const READING_CLOCK_SKEW_MS = 5 * 60_000;
-
-/** ISO 8601 date-time with a time-zone offset (Z or ±hh:mm), e.g. 2026-05-03T08:30:00+01:00. */
-export const IsoDateTimeSchema = z.iso.datetime({
-  offset: true,
-  error: "Give the time as an ISO 8601 date-time with its offset, e.g. 2026-05-03T08:30:00+01:00.",
-});
 
 /** The measurements a reading can hold; at least one must be given. */
 export const READING_MEASUREMENTS = [
@@ -79,8 +76,7 @@ export const CreateReadingSchema = z
       r.gasUsedMinutes.max,
       r.gasUsedMinutes.unit,
     ).nullish(),
-    note: z
-      .string({ error: "The note must be text." })
+    note: noteText("The note must be text.")
       .trim()
       .max(MAX_READING_NOTE_LENGTH, `Use at most ${MAX_READING_NOTE_LENGTH} characters.`)
       .nullish()
@@ -117,12 +113,8 @@ export type CreateReadingParsed = z.output<typeof CreateReadingSchema>;
 /** `GET /api/digesters/:id/readings?from=&to=` (and the CSV export): ISO date-times or days; default the last 60 days. */
 export const ReadingRangeQuerySchema = z
   .object({
-    from: z
-      .union([IsoDateTimeSchema, z.iso.date({ error: "Give a day as YYYY-MM-DD or a date-time with offset." })])
-      .optional(),
-    to: z
-      .union([IsoDateTimeSchema, z.iso.date({ error: "Give a day as YYYY-MM-DD or a date-time with offset." })])
-      .optional(),
+    from: IsoDateOrDateTimeSchema.optional(),
+    to: IsoDateOrDateTimeSchema.optional(),
   })
   .strict();
 export type ReadingRangeQuery = z.output<typeof ReadingRangeQuerySchema>;

@@ -9,6 +9,7 @@ import type { FeedLimitName } from "../domain/feed-budget";
 import { DigesterProfileSchema, DigesterStatusSchema, DigesterTodaySchema } from "./digester";
 import { BudgetOverrideSchema, FeedingSchema, WaterLitresSchema } from "./feedings";
 import { DropOffStatusSchema, TurnedAwayReasonSchema, type TURNED_AWAY_REASONS } from "./drop-offs";
+import { noteText } from "./common";
 
 /** Ages beyond which a reading no longer counts for the budget (DOMAIN.md §2: temperature 48 h, pH and acids 7 days). */
 export const READING_MAX_AGE_HOURS = { temperature: 48, ph: 7 * 24, vfaTa: 7 * 24 } as const;
@@ -48,8 +49,7 @@ export const TURN_AWAY_REASON_CHOICES: Readonly<Record<(typeof TURNED_AWAY_REASO
 export const TurnAwayDropOffSchema = z
   .object({
     reason: TurnedAwayReasonSchema,
-    note: z
-      .string({ error: "The note must be text." })
+    note: noteText("The note must be text.")
       .trim()
       .max(500, "Use at most 500 characters.")
       .nullish()

@@ -25,7 +25,10 @@ export function setCsrfToken(token: string | undefined) {
   csrfToken = token;
 }
 
-/** Fetches the session's CSRF token once, however many requests ask at the same time. */
+/**
+ * Fetches the CSRF token once, however many requests ask at the same time: the session's when someone is signed in,
+ * else a visitor's signed token whose cookie the same answer sets (no session is stored before sign-in).
+ */
 function fetchCsrfToken(): Promise<string> {
   csrfRequest ??= fetch("/api/auth/csrf", { headers: { Accept: "application/json" }, credentials: "same-origin" })
     .then(async (res) => {

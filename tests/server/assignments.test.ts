@@ -1,5 +1,7 @@
 import { describe, expect, it } from "vitest";
 import { createApp } from "../../server/app";
+import { ProposalSchema } from "../../shared/schemas/assignments";
+import { proposalNoteWords } from "../../shared/words/assignment-board";
 import { createDigester, createHousehold, createPerson, signedInClient, sql } from "../helpers/db";
 
 const app = createApp({ requestLogging: false });
@@ -93,6 +95,36 @@ describe("assignment proposals", () => {
     expect(text.match(/pinned to both/g)).toHaveLength(1);
     const nowhere = res.body.unplaced.find((u: { householdId: number }) => u.householdId === row!.id);
     expect(nowhere).toMatchObject({ reason: "noLocation" });
+    // The same problems as codes with parameters; each message is the words of its note.
+    const proposal = ProposalSchema.parse(res.body);
+    expect(proposal.messages).toEqual(proposal.notes.map(proposalNoteWords));
+    const codes = proposal.notes.map((n) => n.code);
+    expect(codes).toEqual(
+      expect.arrayContaining([
+        "pinContradiction",
+        "pinsContradictory",
+        "walkingLimitUnreachable",
+        "householdsWithoutLocation",
+      ]),
+    );
+    expect(proposal.notes).toContainEqual({
+      code: "pinContradiction",
+      kind: "digesterUnavailable",
+      household: { id: households[0]!.id, name: expect.any(String) },
+      digester: { id: offline.id, name: offline.name },
+    });
+    expect(proposal.notes).toContainEqual(
+      expect.objectContaining({
+        code: "walkingLimitUnreachable",
+        walkingLimitM: 5,
+        householdCount: expect.any(Number),
+      }),
+    );
+    expect(proposal.unplaced.find((u) => u.householdId === row!.id)).toMatchObject({
+      walkingLimitM: null,
+      suggestedAction: { code: "compostAtHome" },
+      message: "Nowhere Cottage has no location on the map.",
+    });
     const offlineLoad = res.body.digesters.find((d: { id: number }) => d.id === offline.id);
     expect(offlineLoad).toMatchObject({ available: false, loadKg: 0 });
   });

@@ -14,6 +14,7 @@ import {
 import { deliverDueEmails } from "../../server/modules/outbox/outbox.service";
 import { SIGN_IN_MAX_FAILURES } from "../../server/modules/auth/sign-in-throttle";
 import { pruneExpired } from "../../server/modules/auth/housekeeping.service";
+import { processResetRequests } from "../../server/modules/auth/auth.service";
 import {
   assertOwnHousehold,
   assertOwnRecord,
@@ -104,9 +105,9 @@ describe("POST /api/auth/login", () => {
     expect(unknown.status).toBe(401);
     expect(wrong.body).toEqual(unknown.body);
     expect(wrong.body.error.code).toBe("invalid_credentials");
-    // The visitor session rolls on, but nobody is signed in to it.
-    const [row] = await sessionRow(sessionIdFromCookies(wrong.headers["set-cookie"]));
-    expect(row?.sess.passport).toBeUndefined();
+    // Nobody is signed in, so nothing is stored: no session cookie, no row (issue 10, point 7).
+    expect(sessionIdFromCookies(wrong.headers["set-cookie"])).toBeUndefined();
+    expect(sessionIdFromCookies(unknown.headers["set-cookie"])).toBeUndefined();
   });
 
   it("when the password is wrong or the account unknown, then both take a similar time", async () => {
@@ -160,27 +161,40 @@ describe("POST /api/auth/login", () => {
     expect(Object.keys(res.body.error.fields)).toContain(field);
   });
 
-  it("when someone signs in, then the session gets a new id and the visitor session's row is gone", async () => {
+  it("when someone signs in, then the session gets a new id: a visitor has no row to reuse, and a session already in the browser is replaced and its row deleted", async () => {
     const person = await createPerson();
+    const other = await createPerson();
     const agent = request.agent(app);
     const csrf = await agent.get("/api/auth/csrf");
-    const visitorSid = sessionIdFromCookies(csrf.headers["set-cookie"]);
-    expect(visitorSid).toBeDefined();
-    expect(await sessionRow(visitorSid)).toHaveLength(1);
+    // A visitor's token is a signed cookie pair: no session id, no row (issue 10, point 7).
+    expect(sessionIdFromCookies(csrf.headers["set-cookie"])).toBeUndefined();
     const res = await agent
       .post("/api/auth/login")
       .set("x-csrf-token", csrf.body.token)
       .send({ email: person.email, password: TEST_PASSWORD });
     expect(res.status).toBe(200);
-    const signedInSid = sessionIdFromCookies(res.headers["set-cookie"]);
-    expect(signedInSid).toBeDefined();
-    expect(signedInSid).not.toBe(visitorSid);
-    expect(await sessionRow(visitorSid)).toHaveLength(0);
-    const [row] = await sessionRow(signedInSid);
+    const firstSid = sessionIdFromCookies(res.headers["set-cookie"]);
+    expect(firstSid).toBeDefined();
+    const [row] = await sessionRow(firstSid);
     expect((row!.sess.passport as { user: number }).user).toBe(person.id);
-    // The visitor's CSRF token belonged to the old session and no longer works.
+    // The visitor's CSRF token belonged to no session and no longer works once someone is signed in.
     const stale = await agent.post("/api/auth/session").set("x-csrf-token", csrf.body.token).send({});
     expect(stale.status).toBe(403);
+
+    // Signing in over an existing session (fixation defence): a new id, the old row gone.
+    const firstToken = await csrfToken(agent);
+    const again = await agent
+      .post("/api/auth/login")
+      .set("x-csrf-token", firstToken)
+      .send({ email: other.email, password: TEST_PASSWORD });
+    expect(again.status).toBe(200);
+    const secondSid = sessionIdFromCookies(again.headers["set-cookie"]);
+    expect(secondSid).toBeDefined();
+    expect(secondSid).not.toBe(firstSid);
+    expect(await sessionRow(firstSid)).toHaveLength(0);
+    const [second] = await sessionRow(secondSid);
+    expect((second!.sess.passport as { user: number }).user).toBe(other.id);
+    expect((await agent.post("/api/auth/session").set("x-csrf-token", firstToken).send({})).status).toBe(403);
   });
 });
 
@@ -328,6 +342,56 @@ describe("CSRF protection", () => {
     // No calculator route may exist yet; either way the answer must not be the CSRF refusal.
     const res = await request(app).post("/api/calc/anything").send({});
     expect(res.status).not.toBe(403);
+  });
+});
+
+describe("anonymous visitors", () => {
+  const sessionCount = async () => Number((await sql<{ n: string }>(`SELECT count(*) AS n FROM sessions`))[0]!.n);
+
+  it("when 1,000 visitors without a cookie fetch a CSRF token, then no session row is stored and no session cookie set", async () => {
+    const server = app.listen(0, "127.0.0.1");
+    await new Promise((r) => server.once("listening", r));
+    try {
+      const before = await sessionCount();
+      let sessionCookies = 0;
+      const tokens = new Set<string>();
+      for (let i = 0; i < 1_000; i++) {
+        const res = await request(server).get("/api/auth/csrf");
+        expect(res.status).toBe(200);
+        tokens.add(res.body.token);
+        if (sessionIdFromCookies(res.headers["set-cookie"])) sessionCookies += 1;
+      }
+      const after = await sessionCount();
+      // Server tests run one file at a time, so nothing else adds sessions meanwhile.
+      console.info(`anonymous sessions: ${after - before} rows after 1,000 GET /api/auth/csrf`);
+      expect(after - before).toBeLessThanOrEqual(5);
+      expect(sessionCookies).toBe(0);
+      expect(tokens.size).toBe(1_000);
+    } finally {
+      await new Promise((r) => server.close(r));
+    }
+  });
+
+  it("when a visitor's token is sent without the cookie it came with, or with another visitor's cookie, then it is refused", async () => {
+    const person = await createPerson();
+    const a = await anonymousClient(app);
+    const b = await anonymousClient(app);
+    const bare = await request(app)
+      .post("/api/auth/login")
+      .set("x-csrf-token", a.csrf)
+      .send({ email: person.email, password: TEST_PASSWORD });
+    const crossed = await b.agent
+      .post("/api/auth/login")
+      .set("x-csrf-token", a.csrf)
+      .send({ email: person.email, password: TEST_PASSWORD });
+    for (const res of [bare, crossed]) {
+      expect(res.status).toBe(403);
+      expect(res.body.error.code).toBe("csrf_invalid");
+    }
+    expect(
+      await sql(`SELECT 1 FROM sessions WHERE (sess -> 'passport' ->> 'user') = $1`, [String(person.id)]),
+    ).toHaveLength(0);
+    expect((await a.post("/api/auth/login").send({ email: person.email, password: TEST_PASSWORD })).status).toBe(200);
   });
 });
 
@@ -491,6 +555,8 @@ describe("password reset", () => {
     expect(a.status).toBe(202);
     expect(b.status).toBe(202);
     expect(a.body).toEqual(b.body);
+    // The answer only stores the request; the link and e-mail come after it (issue 10, point 6).
+    await processResetRequests();
     expect(
       await sql(`SELECT 1 FROM outbox_emails WHERE to_address = $1 AND status = 'pending'`, [person.email]),
     ).toHaveLength(1);
@@ -510,6 +576,7 @@ describe("password reset", () => {
     const before = await clientFor(app, person);
     const client = await anonymousClient(app);
     await client.post("/api/auth/password-reset").send({ email: person.email });
+    await processResetRequests();
     await deliverDueEmails();
     const [message] = await waitForMails(person.email);
     expect(message!.subject).toBe("Reset your Hearthloop password");
@@ -537,6 +604,7 @@ describe("password reset", () => {
     const person = await createPerson();
     const client = await anonymousClient(app);
     await client.post("/api/auth/password-reset").send({ email: person.email });
+    await processResetRequests();
     await sql(`UPDATE password_resets SET expires_at = now() - interval '1 second' WHERE person_id = $1 RETURNING id`, [
       person.id,
     ]);
@@ -560,6 +628,7 @@ describe("password reset", () => {
     const client = await anonymousClient(app);
     for (let i = 0; i < 5; i++)
       expect((await client.post("/api/auth/password-reset").send({ email: person.email })).status).toBe(202);
+    await processResetRequests();
     expect(await sql(`SELECT 1 FROM outbox_emails WHERE to_address = $1`, [person.email])).toHaveLength(3);
   });
 });

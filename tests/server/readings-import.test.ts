@@ -91,6 +91,35 @@ describe("uploading a sensor log", () => {
     expect(await uploadCount(digester.id)).toBe(4);
   });
 
+  it("when one file has two rows for the same moment with different values, then it is refused naming both lines and nothing is written", async () => {
+    const { digester, steward } = await setUp();
+    const [a, b] = minuteStamps(2);
+    // The same instant written twice, once in UTC and once at +01:00.
+    const sameAsB = new Date(new Date(b!).getTime() + 3_600_000).toISOString().replace(".000Z", "+01:00");
+    const csv = `timestamp,temperature_c,ph\n${a},30,7\n${b},31.2,7.1\n${a},30.0,7.00\n${sameAsB},31.4,7.1\n`;
+    const res = await upload(steward, digester.id, csv);
+    expect(res.status).toBe(400);
+    expect(res.body.error).toMatchObject({
+      code: "csv_conflict",
+      fields: { line: "5", otherLine: "3", column: "1", columnName: "timestamp" },
+    });
+    expect(res.body.error.message).toMatch(/^Line 5, column 1 \(timestamp\): /);
+    expect(res.body.error.message).toContain("line 3");
+    expect(res.body.error.message).toContain("temperature_c 31.2 on line 3, 31.4 here");
+    expect(await uploadCount(digester.id)).toBe(0);
+  });
+
+  it("when one file repeats a row with the same moment and the same values, then it is imported once and the repeat is counted as skipped", async () => {
+    const { digester, steward } = await setUp();
+    const [a, b] = minuteStamps(2);
+    const aAtPlusOne = new Date(new Date(a!).getTime() + 3_600_000).toISOString().replace(".000Z", "+01:00");
+    const csv = `timestamp,temperature_c,ph,gas_level_percent\n${a},30.5,7,\n${b},31,7.1,40\n${aAtPlusOne},30.50,7.0,\n`;
+    const res = await upload(steward, digester.id, csv);
+    expect(res.status).toBe(200);
+    expect(res.body).toMatchObject({ imported: 2, skippedDuplicates: 1, rows: 3 });
+    expect(await uploadCount(digester.id)).toBe(2);
+  });
+
   it("when the file has the columns in another order, quoted values, CRLF line ends and blank lines, then it is read", async () => {
     const { digester, steward } = await setUp();
     const [a, b] = minuteStamps(2);

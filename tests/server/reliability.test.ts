@@ -4,15 +4,13 @@
  * PostgreSQL plays the database going away and coming back.
  */
 import { afterEach, describe, expect, it } from "vitest";
-import { fork, type ChildProcess } from "node:child_process";
 import net from "node:net";
-import path from "node:path";
+import { killServerProcesses, startServerProcess as startServer } from "../helpers/server-process";
 
-const children: ChildProcess[] = [];
 const servers: net.Server[] = [];
 
 afterEach(async () => {
-  for (const c of children.splice(0)) if (c.exitCode === null) c.kill("SIGKILL");
+  killServerProcesses();
   for (const s of servers.splice(0)) s.close();
 });
 
@@ -20,29 +18,6 @@ function listen(server: net.Server, port = 0): Promise<number> {
   return new Promise((resolve) =>
     server.listen(port, "127.0.0.1", () => resolve((server.address() as net.AddressInfo).port)),
   );
-}
-
-/** Starts server/index.ts as a child; resolves with its port once it listens. */
-async function startServer(env: Record<string, string>): Promise<{ child: ChildProcess; port: number }> {
-  const child = fork(path.resolve("server/index.ts"), [], {
-    execArgv: ["--import", "tsx"],
-    env: {
-      ...process.env,
-      PORT: "0",
-      HOST: "127.0.0.1",
-      JOBS_ENABLED: "false",
-      LOG_LEVEL: "silent",
-      CLIENT_DIST: "no-client",
-      ...env,
-    },
-    stdio: ["ignore", "ignore", "inherit", "ipc"],
-  });
-  children.push(child);
-  const port = await new Promise<number>((resolve, reject) => {
-    child.on("message", (m: { type?: string; port?: number }) => m?.type === "listening" && resolve(m.port!));
-    child.once("exit", (code) => reject(new Error(`server exited early with ${code}`)));
-  });
-  return { child, port };
 }
 
 /** A relay to PostgreSQL that can drop every connection and refuse new ones, then come back. */

@@ -3,12 +3,12 @@ import type { AssignmentInput } from "../../shared/domain/assignment";
 import { auditAssignment } from "../../shared/domain/assignment";
 import { destinationPoint } from "../../shared/domain/geo";
 import { solveOffThread, stopSolver } from "../../server/modules/assignments/solver-pool";
+import { mulberry32 } from "../../shared/random";
 
 /** A tight invented network: 300 households around 8 digesters with 30 % spare room (deterministic). */
 function tightNetwork(): AssignmentInput {
   const centre = { lat: 52.09, lng: 5.12 };
-  let seed = 7;
-  const rnd = () => ((seed = (seed * 16807) % 2147483647) - 1) / 2147483646;
+  const rnd = mulberry32(7);
   const households = Array.from({ length: 300 }, (_, i) => ({
     id: `h${i}`,
     ...destinationPoint(destinationPoint(centre, 90, rnd() * 2000), 0, rnd() * 2000),

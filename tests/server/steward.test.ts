@@ -3,7 +3,7 @@ import { createApp } from "../../server/app";
 import { sequelize } from "../../server/db/sequelize";
 import { addDays } from "../../server/lib/clock";
 import { loadDigestersToday } from "../../server/modules/digesters/digester-state.service";
-import { reserveToday, withLedgerGuard } from "../../server/modules/feedings/feed-capacity";
+import { reserveToday, withLedgerGuard } from "../../server/modules/digesters/feed-capacity";
 import { createPerson, clientFor, signedInClient, sql, type ApiClient } from "../helpers/db";
 import { committedFromRows, createDropOff, ledgerDay, today, warmDigester } from "../helpers/steward-fixtures";
 

@@ -4,9 +4,13 @@ import {
   type CreationOptional,
   type InferAttributes,
   type InferCreationAttributes,
+  type NonAttribute,
   type Sequelize,
 } from "sequelize";
+import { withNumbers } from "./columns";
+import type { PersonModel } from "./person.model";
 
+/** `digesters` (0001-core): a digester's profile and status. */
 export class DigesterModel extends Model<InferAttributes<DigesterModel>, InferCreationAttributes<DigesterModel>> {
   declare id: CreationOptional<number>;
   declare name: string;
@@ -31,9 +35,11 @@ export class DigesterModel extends Model<InferAttributes<DigesterModel>, InferCr
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
 
+  declare stewards?: NonAttribute<PersonModel[]>;
+
   static initModel(sequelize: Sequelize) {
     DigesterModel.init(
-      {
+      withNumbers({
         id: { type: DataTypes.INTEGER, primaryKey: true, autoIncrement: true },
         name: { type: DataTypes.TEXT, allowNull: false },
         siteDescription: { type: DataTypes.TEXT, allowNull: false, defaultValue: "" },
@@ -54,9 +60,9 @@ export class DigesterModel extends Model<InferAttributes<DigesterModel>, InferCr
         olrOverrideReason: { type: DataTypes.TEXT },
         targetTsPercent: { type: DataTypes.DECIMAL(5, 2), allowNull: false, defaultValue: 8 },
         bucketKgPerLitre: { type: DataTypes.DECIMAL(4, 2), allowNull: false, defaultValue: 0.5 },
-        createdAt: DataTypes.DATE,
-        updatedAt: DataTypes.DATE,
-      },
+        createdAt: { type: DataTypes.DATE, allowNull: false },
+        updatedAt: { type: DataTypes.DATE, allowNull: false },
+      }),
       { sequelize, tableName: "digesters", underscored: true },
     );
   }

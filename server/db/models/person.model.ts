@@ -4,11 +4,16 @@ import {
   type CreationOptional,
   type InferAttributes,
   type InferCreationAttributes,
+  type NonAttribute,
   type Sequelize,
 } from "sequelize";
+import { withNumbers } from "./columns";
+import type { DigesterModel } from "./digester.model";
+import type { HouseholdModel } from "./household.model";
 
 export type Role = "resident" | "steward" | "coordinator" | "gardener";
 
+/** `people` (0001-core): an account, its roles, household and cargo bike. */
 export class PersonModel extends Model<InferAttributes<PersonModel>, InferCreationAttributes<PersonModel>> {
   declare id: CreationOptional<number>;
   declare email: string;
@@ -25,9 +30,12 @@ export class PersonModel extends Model<InferAttributes<PersonModel>, InferCreati
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
 
+  declare household?: NonAttribute<HouseholdModel | null>;
+  declare stewardedDigesters?: NonAttribute<DigesterModel[]>;
+
   static initModel(sequelize: Sequelize) {
     PersonModel.init(
-      {
+      withNumbers({
         id: { type: DataTypes.INTEGER, primaryKey: true, autoIncrement: true },
         email: { type: DataTypes.CITEXT, allowNull: false, unique: true },
         name: { type: DataTypes.TEXT, allowNull: false },
@@ -40,28 +48,10 @@ export class PersonModel extends Model<InferAttributes<PersonModel>, InferCreati
         startLat: { type: DataTypes.DOUBLE },
         startLng: { type: DataTypes.DOUBLE },
         passwordChangedAt: { type: DataTypes.DATE },
-        createdAt: DataTypes.DATE,
-        updatedAt: DataTypes.DATE,
-      },
+        createdAt: { type: DataTypes.DATE, allowNull: false },
+        updatedAt: { type: DataTypes.DATE, allowNull: false },
+      }),
       { sequelize, tableName: "people", underscored: true },
-    );
-  }
-}
-
-export class DigesterStewardModel extends Model<
-  InferAttributes<DigesterStewardModel>,
-  InferCreationAttributes<DigesterStewardModel>
-> {
-  declare digesterId: number;
-  declare personId: number;
-
-  static initModel(sequelize: Sequelize) {
-    DigesterStewardModel.init(
-      {
-        digesterId: { type: DataTypes.INTEGER, primaryKey: true },
-        personId: { type: DataTypes.INTEGER, primaryKey: true },
-      },
-      { sequelize, tableName: "digester_stewards", underscored: true, timestamps: false },
     );
   }
 }

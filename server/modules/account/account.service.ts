@@ -5,11 +5,11 @@ import { hashPassword, verifyPassword } from "../../lib/password";
 import { logSecurityEvent } from "../../lib/security-log";
 import type { Caller } from "../../middleware/handle";
 import type { ChangeEmail, ChangePassword } from "../../../shared/schemas/auth";
-import * as authRepo from "../auth/auth.repository";
+import { useResets } from "../auth";
 import { assertAcceptablePassword, type RequestContext } from "../auth/auth.service";
+import * as people from "../people";
 import { enqueueEmail } from "../outbox/outbox.service";
 import { emailChangedEmail, passwordChangedEmail } from "../outbox/templates";
-import * as repo from "./account.repository";
 
 const wrongPassword = (field: string) =>
   new AppError(400, "wrong_password", "The password you typed is not your current password.", {
@@ -17,16 +17,16 @@ const wrongPassword = (field: string) =>
   });
 
 async function assertPassword(caller: Caller, password: string, field: string): Promise<void> {
-  const record = await authRepo.findById(caller.id);
+  const record = await people.findById(caller.id);
   if (!record?.passwordHash || !(await verifyPassword(record.passwordHash, password))) throw wrongPassword(field);
 }
 
 async function fresh(caller: Caller): Promise<Caller> {
-  return (await authRepo.findById(caller.id))!.caller;
+  return (await people.findById(caller.id))!.caller;
 }
 
 export async function updateName(caller: Caller, name: string): Promise<Caller> {
-  await repo.setName(caller.id, name);
+  await people.setName(caller.id, name);
   return fresh(caller);
 }
 
@@ -49,9 +49,9 @@ export async function changePassword(
   assertAcceptablePassword(input.newPassword, "newPassword");
   const passwordHash = await hashPassword(input.newPassword);
   await sequelize().transaction(async (t) => {
-    await authRepo.setPassword(t, caller.id, passwordHash);
-    await authRepo.useResets(t, caller.id);
-    await authRepo.deleteSessionsOf(caller.id, currentSessionId ?? "", t);
+    await people.setPassword(t, caller.id, passwordHash);
+    await useResets(t, caller.id);
+    await people.deleteSessionsOf(caller.id, currentSessionId ?? "", t);
     await enqueueEmail(t, passwordChangedEmail({ to: caller.email, name: caller.name }));
   });
   logSecurityEvent("password_changed", { ...ctx, userId: caller.id });
@@ -67,8 +67,8 @@ export async function changeEmail(caller: Caller, input: ChangeEmail, ctx: Reque
     conflict("This e-mail address is in use.", { newEmail: "Another account already uses this address." });
   try {
     await sequelize().transaction(async (t) => {
-      if (await repo.emailTaken(t, input.newEmail, caller.id)) throw taken();
-      await repo.setEmail(t, caller.id, input.newEmail);
+      if (await people.emailTaken(t, input.newEmail, caller.id)) throw taken();
+      await people.setEmail(t, caller.id, input.newEmail);
       await enqueueEmail(t, emailChangedEmail({ to: caller.email, name: caller.name, newEmail: input.newEmail }));
     });
   } catch (err) {

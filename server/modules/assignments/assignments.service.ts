@@ -7,12 +7,12 @@
 import { Transaction } from "sequelize";
 import {
   type AssignmentDigester,
-  type AssignmentResult,
   type AssignmentHousehold,
   type AssignmentInput,
   nearestWithRoomBaseline,
 } from "../../../shared/domain/assignment";
 import { haversineM, isValidLatLng } from "../../../shared/domain/geo";
+import { householdWeeklyKg } from "../../../shared/domain/room";
 import { WEEKLY_ROOM_METHOD, projectWeeklyRoom } from "../../../shared/domain/weekly-room";
 import type {
   ApplyRequest,
@@ -20,33 +20,52 @@ import type {
   Proposal,
   ProposalAssignment,
   ProposalDigester,
+  ProposalNote,
   ProposalRequest,
   ProposalUnplaced,
 } from "../../../shared/schemas/assignments";
+import { proposalNoteWords, suggestionWords, unplacedWords } from "../../../shared/words/assignment-board";
 import { sequelize } from "../../db/sequelize";
 import { AppError, badRequest, conflict, notFound } from "../../lib/app-error";
-import { daysBetween, localDate } from "../../lib/clock";
-import { type DigesterToday, loadDigestersToday } from "../digesters/digester-state.service";
+import { localDate } from "../../lib/clock";
+import { type DigesterToday, loadDigestersToday, recentDeliveries } from "../digesters";
+import { assignmentRows, assignmentVersion, setAssignment, type AssignmentRow } from "../households";
+import { residentsOf } from "../people";
 import { enqueueEmail } from "../outbox/outbox.service";
-import { newDigesterEmail } from "./assignments.emails";
+import { type MoveReason, newDigesterEmail } from "./assignments.emails";
+import { solverNotes } from "./assignments.notes";
 import { solveOffThread } from "./solver-pool";
 import * as repo from "./assignments.repository";
 
-/** Weeks of history below which the declared amount is used. */
-export const MIN_HISTORY_WEEKS = 2;
-const HISTORY_WEEKS = 8;
-const DEFAULT_WHY =
-  "the coordinator re-balanced households across the digesters so that each stays within its safe feed rate for the week while everyone walks as little as possible.";
-
-/** Expected kg a week: recent fed/accepted kg over the weeks since the first of them (2…8), else declared. */
-export function householdWeeklyKg(h: repo.AssignableHousehold, today: string): number {
-  if (h.recentWeeks < MIN_HISTORY_WEEKS || h.firstRecentDay === null) return h.declaredWeeklyKg;
-  const spanWeeks = Math.min(
-    HISTORY_WEEKS,
-    Math.max(MIN_HISTORY_WEEKS, Math.ceil((daysBetween(h.firstRecentDay, today) + 1) / 7)),
-  );
-  return h.recentKg / spanWeeks;
+export interface AssignableHousehold extends AssignmentRow {
+  /** kg fresh fed or accepted in the last 56 days. */
+  recentKg: number;
+  /** Distinct weeks (Monday-based) with a fed or accepted drop-off in the last 56 days. */
+  recentWeeks: number;
+  /** First day of a fed or accepted drop-off in the last 56 days. */
+  firstRecentDay: string | null;
 }
+
+/**
+ * Every household with what the scheduler needs: place, current assignment and pin, declared
+ * amount and its last 8 weeks of fed or accepted drop-offs.
+ */
+async function assignableHouseholds(today: string, transaction?: Transaction): Promise<AssignableHousehold[]> {
+  const [rows, deliveries] = await Promise.all([assignmentRows(transaction), recentDeliveries(today, transaction)]);
+  const byHousehold = new Map(deliveries.map((d) => [d.householdId, d]));
+  return rows.map((h) => {
+    const d = byHousehold.get(h.id);
+    return {
+      ...h,
+      recentKg: d?.recentKg ?? 0,
+      recentWeeks: d?.recentWeeks ?? 0,
+      firstRecentDay: d?.firstRecentDay ?? null,
+    };
+  });
+}
+
+/** A household's expected weekly kg: shared/domain/room.ts (recent history, else declared). */
+export { MIN_HISTORY_WEEKS, householdWeeklyKg } from "../../../shared/domain/room";
 
 /** Weekly room of a digester in fresh kg (0 when closed or excluded). */
 export function digesterWeeklyRoomKg(state: DigesterToday, excluded: boolean): number {
@@ -59,34 +78,6 @@ export function digesterWeeklyRoomKg(state: DigesterToday, excluded: boolean): n
   }).weeklyKgScraps;
 }
 
-const round1 = (x: number) => Math.round(x * 10) / 10;
-
-/**
- * The solver's own messages as a coordinator reads them: those this service already says in its
- * own words (contradictory pins, digesters without room, the unplaced summary) are left out, and
- * ids become names.
- */
-function coordinatorMessages(
-  result: AssignmentResult,
-  householdName: (id: string) => string,
-  digesterName: (id: string) => string,
-): string[] {
-  const contradictions = new Set(result.contradictions.map((c) => c.message));
-  const out: string[] = [];
-  for (const m of result.messages) {
-    if (contradictions.has(m)) continue;
-    if (/could not be placed; see the list/.test(m)) continue;
-    if (/^Digester \S+ has no room this week/.test(m) || m.startsWith("No digester is taking scraps")) continue;
-    out.push(
-      m
-        .replace(/\bHousehold (\d+)\b/g, (_, id: string) => householdName(id))
-        .replace(/\b[Dd]igester (\d+)\b/g, (_, id: string) => digesterName(id))
-        .replace(/\bpinned to (\d+)\b/g, (_, id: string) => `pinned to ${digesterName(id)}`),
-    );
-  }
-  return out;
-}
-
 /** A proposal: nothing is written. */
 export async function propose(request: ProposalRequest, now = new Date()): Promise<Proposal> {
   const today = localDate(now);
@@ -94,20 +85,20 @@ export async function propose(request: ProposalRequest, now = new Date()): Promi
     // One snapshot for the households and the version, so a change landing in between cannot
     // give a stale proposal a fresh version (apply would then not answer 409).
     sequelize().transaction({ isolationLevel: Transaction.ISOLATION_LEVELS.REPEATABLE_READ }, async (transaction) => {
-      const rows = await repo.assignableHouseholds(today, transaction);
-      return [rows, await repo.assignmentVersion(transaction)] as const;
+      const rows = await assignableHouseholds(today, transaction);
+      return [rows, await assignmentVersion(transaction)] as const;
     }),
     loadDigestersToday(null, { now }),
   ]);
-  const messages: string[] = [];
+  // What is worth knowing, as codes; the coordinator's words are made from them at the end.
+  const notes: ProposalNote[] = [];
   const householdById = new Map(households.map((h) => [h.id, h]));
   const stateById = new Map(states.map((s) => [s.digester.id, s]));
   const digesterName = (id: number | string) => stateById.get(Number(id))?.digester.name ?? `digester ${id}`;
   const householdName = (id: number | string) => householdById.get(Number(id))?.name ?? `household ${id}`;
 
   const excluded = new Set(request.excludeDigesterIds ?? []);
-  for (const id of excluded)
-    if (!stateById.has(id)) messages.push(`Digester ${id} to exclude does not exist; ignored.`);
+  for (const id of excluded) if (!stateById.has(id)) notes.push({ code: "excludedDigesterUnknown", digesterId: id });
 
   // Pins: those stored, then those in the request (which win). Two request pins for one household contradict.
   const pins = new Map<number, number>();
@@ -117,14 +108,17 @@ export async function propose(request: ProposalRequest, now = new Date()): Promi
   const requested = new Map<number, number>();
   for (const pin of request.pins ?? []) {
     if (!householdById.has(pin.householdId)) {
-      messages.push(`Pin ignored: household ${pin.householdId} does not exist.`);
+      notes.push({ code: "pinHouseholdUnknown", householdId: pin.householdId });
       continue;
     }
     const earlier = requested.get(pin.householdId);
     if (earlier !== undefined && earlier !== pin.digesterId) {
-      messages.push(
-        `Contradictory pins: ${householdName(pin.householdId)} is pinned to both ${digesterName(earlier)} and ${digesterName(pin.digesterId)}; the first pin is kept.`,
-      );
+      notes.push({
+        code: "pinsContradictory",
+        household: { id: pin.householdId, name: householdName(pin.householdId) },
+        keptDigester: { id: earlier, name: digesterName(earlier) },
+        droppedDigester: { id: pin.digesterId, name: digesterName(pin.digesterId) },
+      });
       continue;
     }
     requested.set(pin.householdId, pin.digesterId);
@@ -160,27 +154,19 @@ export async function propose(request: ProposalRequest, now = new Date()): Promi
   const { result, solveMs } = await solveOffThread(input, { timeLimitS: 10 });
   const baseline = nearestWithRoomBaseline(input);
 
-  for (const c of result.contradictions) {
-    const who = householdName(c.householdId);
-    const where = digesterName(c.digesterId);
-    messages.push(
-      c.kind === "unknownDigester"
-        ? `Contradictory pin: ${who} is pinned to a digester that does not exist (${c.digesterId}); it is placed like any other household.`
-        : c.kind === "digesterUnavailable"
-          ? `Contradictory pin: ${who} is pinned to ${where}, which is resting, offline or excluded; it is placed like any other household.`
-          : `Contradictory pin: the households pinned to ${where} bring more than its weekly room; ${who} is placed like any other household.`,
-    );
-  }
-  for (const m of coordinatorMessages(result, householdName, digesterName)) messages.push(m);
+  notes.push(
+    ...solverNotes(result, {
+      household: householdName,
+      digester: (id) => stateById.get(id)?.digester.name ?? null,
+    }),
+  );
 
   const noLocation = result.unplaced.filter((u) => u.reason === "noLocation");
   if (noLocation.length > 0) {
-    messages.push(
-      `${noLocation.length} household${noLocation.length === 1 ? " has" : "s have"} no location on the map (${noLocation
-        .slice(0, 5)
-        .map((u) => householdName(u.householdId))
-        .join(", ")}${noLocation.length > 5 ? ", …" : ""}); add one so they can be assigned.`,
-    );
+    notes.push({
+      code: "householdsWithoutLocation",
+      households: noLocation.map((u) => ({ id: Number(u.householdId), name: householdName(u.householdId) })),
+    });
   }
   const available = modelDigesters.filter((d) => d.available);
   const outOfReach = result.unplaced.filter((u) => u.reason === "noDigesterWithinReach");
@@ -192,22 +178,20 @@ export async function propose(request: ProposalRequest, now = new Date()): Promi
       const nearest = Math.min(...available.map((d) => haversineM({ lat: h.lat!, lng: h.lng! }, d)));
       needed = Math.max(needed, nearest);
     }
-    messages.push(
-      `The maximum walk of ${Math.round(request.maxWalkM)} m cannot be met: ${outOfReach.length} household${outOfReach.length === 1 ? " has" : "s have"} no open digester that close. A limit of ${Math.ceil(needed)} m would reach them all.`,
-    );
+    notes.push({
+      code: "walkingLimitUnreachable",
+      walkingLimitM: request.maxWalkM,
+      householdCount: outOfReach.length,
+      neededM: needed,
+    });
   }
-  if (available.length === 0)
-    messages.push("No digester is taking scraps this week (all resting, offline or excluded).");
+  if (available.length === 0) notes.push({ code: "noDigesterTakingScraps" });
   const noRoom = states.filter((s) => !s.closed && !excluded.has(s.digester.id) && digesterWeeklyRoomKg(s, false) <= 0);
   if (noRoom.length > 0) {
-    messages.push(
-      `${noRoom
-        .slice(0, 5)
-        .map((s) => s.digester.name)
-        .join(
-          ", ",
-        )}${noRoom.length > 5 ? ` and ${noRoom.length - 5} more` : ""} ${noRoom.length === 1 ? "has" : "have"} no room this week (no temperature reading in 3 days, an acid warning, or a week already full), so ${noRoom.length === 1 ? "it takes" : "they take"} no households.`,
-    );
+    notes.push({
+      code: "digestersWithoutRoom",
+      digesters: noRoom.map((s) => ({ id: s.digester.id, name: s.digester.name })),
+    });
   }
 
   const assignments: ProposalAssignment[] = result.assignments.map((a) => {
@@ -243,29 +227,23 @@ export async function propose(request: ProposalRequest, now = new Date()): Promi
     };
   });
   const unplaced: ProposalUnplaced[] = result.unplaced.map((u) => {
-    const name = householdName(u.householdId);
-    const suggestion =
-      u.suggestion.kind === "anotherDay"
-        ? `Bring the scraps to ${digesterName(u.suggestion.digesterId)} (${Math.round(u.suggestion.distanceM)} m) on another day, or compost at home.`
-        : "Compost at home until there is room.";
-    const message =
-      u.reason === "noLocation"
-        ? `${name} has no location on the map.`
-        : u.reason === "invalidAmount"
-          ? `${name} has no valid weekly amount.`
-          : u.reason === "noDigesterWithinReach"
-            ? request.maxWalkM != null
-              ? `No open digester within ${Math.round(request.maxWalkM)} m of ${name}.`
-              : `No digester is open for ${name}.`
-            : `Every digester within reach of ${name} is full this week (${round1(u.weeklyKg)} kg to place).`;
-    return {
+    const coded = {
       householdId: Number(u.householdId),
-      householdName: name,
+      householdName: householdName(u.householdId),
       weeklyKg: u.weeklyKg,
       reason: u.reason,
-      message,
-      suggestion,
+      walkingLimitM: u.walkingLimitM,
+      suggestedAction:
+        u.suggestion.kind === "anotherDay"
+          ? {
+              code: "anotherDay" as const,
+              digesterId: Number(u.suggestion.digesterId),
+              digesterName: digesterName(u.suggestion.digesterId),
+              distanceM: u.suggestion.distanceM,
+            }
+          : { code: "compostAtHome" as const },
     };
+    return { ...coded, message: unplacedWords(coded), suggestion: suggestionWords(coded) };
   });
   let currentDistanceM = 0;
   for (const h of households) {
@@ -277,7 +255,8 @@ export async function propose(request: ProposalRequest, now = new Date()): Promi
     assignments,
     digesters,
     unplaced,
-    messages,
+    messages: notes.map(proposalNoteWords),
+    notes,
     totalDistanceM: result.totalDistanceM,
     baselineDistanceM: baseline.totalDistanceM,
     currentDistanceM,
@@ -298,54 +277,65 @@ interface Move {
 }
 
 /**
- * Why a household moves, in the resident's words: its digester is closed, or over its safe weekly
- * feed, or the new one is closer; else the general reason. `loadsBefore` is each digester's
- * expected weekly kg before the change.
+ * Why a household moves, as a code (the e-mail words it): its digester is closed, or over its
+ * safe weekly feed, or the new one is closer; else the general reason. `loadsBefore` is each
+ * digester's expected weekly kg before the change.
  */
 function moveReason(
   m: Move,
   ctx: {
     stateById: Map<number, DigesterToday>;
-    householdById: Map<number, repo.AssignableHousehold>;
+    householdById: Map<number, AssignableHousehold>;
     loadsBefore: Map<number, number>;
   },
-): string {
+): MoveReason {
   const from = m.fromDigesterId === null ? undefined : ctx.stateById.get(m.fromDigesterId);
   const to = ctx.stateById.get(m.toDigesterId);
-  if (!to) return DEFAULT_WHY;
-  if (!from) return `your household had no digester yet, and ${to.digester.name} has room for your scraps.`;
+  if (!to) return { code: "rebalanced" };
+  if (!from) return { code: "firstDigester", toName: to.digester.name };
   if (from.closed) {
-    return `${from.digester.name} is ${from.digester.status} for now${from.digester.statusReason ? ` (${from.digester.statusReason})` : ""}, so its households bring their scraps to other digesters.`;
+    return {
+      code: "digesterClosed",
+      fromName: from.digester.name,
+      status: from.digester.status,
+      statusReason: from.digester.statusReason || null,
+    };
   }
   const room = digesterWeeklyRoomKg(from, false);
   const load = ctx.loadsBefore.get(from.digester.id) ?? 0;
   if (load > room + 1e-6) {
-    return `${from.digester.name} was expecting about ${Math.round(load)} kg of scraps this week but can safely digest about ${Math.round(room)} kg, and ${to.digester.name} has room.`;
+    return {
+      code: "digesterOverFull",
+      fromName: from.digester.name,
+      expectedKg: load,
+      safeKg: room,
+      toName: to.digester.name,
+    };
   }
   const h = ctx.householdById.get(m.householdId);
   if (h && isValidLatLng(h.lat, h.lng)) {
     const home = { lat: h.lat!, lng: h.lng! };
     const closer = haversineM(home, from.digester) - haversineM(home, to.digester);
     if (closer >= 10)
-      return `${to.digester.name} is about ${Math.round(closer)} m closer to your home than ${from.digester.name}.`;
+      return { code: "closer", toName: to.digester.name, fromName: from.digester.name, closerM: closer };
   }
-  return DEFAULT_WHY;
+  return { code: "rebalanced" };
 }
 
 async function notifyMoves(
   transaction: Transaction,
   moves: Move[],
-  why: string | ((m: Move) => string),
+  why: MoveReason | ((m: Move) => MoveReason),
   now: Date,
 ): Promise<number> {
   if (moves.length === 0) return 0;
   const [residents, states, households] = await Promise.all([
-    repo.residentsOf(
+    residentsOf(
       moves.map((m) => m.householdId),
       transaction,
     ),
     loadDigestersToday(null, { now, transaction }),
-    repo.assignableHouseholds(localDate(now), transaction),
+    assignableHouseholds(localDate(now), transaction),
   ]);
   const stateById = new Map(states.map((s) => [s.digester.id, s.digester]));
   const householdById = new Map(households.map((h) => [h.id, h]));
@@ -366,7 +356,7 @@ async function notifyMoves(
           siteDescription: to.siteDescription,
           distanceM,
           previousDigesterName: m.fromDigesterId === null ? null : (stateById.get(m.fromDigesterId)?.name ?? null),
-          why: typeof why === "string" ? why : why(m),
+          why: typeof why === "function" ? why(m) : why,
         }),
       );
       queued++;
@@ -383,13 +373,13 @@ async function notifyMoves(
 export async function apply(request: ApplyRequest, now = new Date()): Promise<ApplyResult> {
   return sequelize().transaction(async (transaction) => {
     await repo.lockAssignments(transaction);
-    const current = await repo.assignmentVersion(transaction);
+    const current = await assignmentVersion(transaction);
     if (current !== request.version) {
       throw conflict(
         "The assignment changed since this proposal was made (another coordinator applied one, or a pin changed). Run a new proposal; nothing was changed.",
       );
     }
-    const households = await repo.assignableHouseholds(localDate(now), transaction);
+    const households = await assignableHouseholds(localDate(now), transaction);
     const byId = new Map(households.map((h) => [h.id, h]));
     const states = await loadDigestersToday(null, { now, transaction });
     const stateById = new Map(states.map((s) => [s.digester.id, s]));
@@ -415,7 +405,7 @@ export async function apply(request: ApplyRequest, now = new Date()): Promise<Ap
     for (const c of request.changes) {
       const h = byId.get(c.householdId)!;
       const pinned = c.digesterId === null ? false : (c.pinned ?? h.pinned);
-      await repo.setAssignment(transaction, c.householdId, c.digesterId, pinned);
+      await setAssignment(transaction, c.householdId, c.digesterId, pinned);
       if (c.digesterId !== null && c.digesterId !== h.assignedDigesterId) {
         moves.push({ householdId: h.id, fromDigesterId: h.assignedDigesterId, toDigesterId: c.digesterId });
       }
@@ -430,10 +420,10 @@ export async function apply(request: ApplyRequest, now = new Date()): Promise<Ap
         );
     }
     const why = request.reason
-      ? request.reason
+      ? ({ code: "coordinatorReason", text: request.reason } as const)
       : (m: Move) => moveReason(m, { stateById, householdById: byId, loadsBefore });
     const emailsQueued = await notifyMoves(transaction, moves, why, now);
-    return { applied: request.changes.length, emailsQueued, version: await repo.assignmentVersion(transaction) };
+    return { applied: request.changes.length, emailsQueued, version: await assignmentVersion(transaction) };
   });
 }
 
@@ -445,7 +435,7 @@ export async function setPin(
 ): Promise<{ householdId: number; assignedDigesterId: number | null; pinned: boolean; version: string }> {
   return sequelize().transaction(async (transaction) => {
     await repo.lockAssignments(transaction);
-    const households = await repo.assignableHouseholds(localDate(now), transaction);
+    const households = await assignableHouseholds(localDate(now), transaction);
     const h = households.find((x) => x.id === householdId);
     if (!h) throw notFound("The household");
     const digesterId = input.digesterId ?? h.assignedDigesterId;
@@ -464,12 +454,12 @@ export async function setPin(
           `${s.digester.name} is ${s.digester.status}: it takes no households.`,
         );
     }
-    await repo.setAssignment(transaction, householdId, digesterId, input.pinned);
+    await setAssignment(transaction, householdId, digesterId, input.pinned);
     if (digesterId !== null && digesterId !== h.assignedDigesterId) {
       await notifyMoves(
         transaction,
         [{ householdId, fromDigesterId: h.assignedDigesterId, toDigesterId: digesterId }],
-        DEFAULT_WHY,
+        { code: "rebalanced" },
         now,
       );
     }
@@ -477,7 +467,7 @@ export async function setPin(
       householdId,
       assignedDigesterId: digesterId,
       pinned: input.pinned,
-      version: await repo.assignmentVersion(transaction),
+      version: await assignmentVersion(transaction),
     };
   });
 }

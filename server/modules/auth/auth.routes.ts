@@ -11,6 +11,7 @@ import {
   TokenParamsSchema,
 } from "../../../shared/schemas/auth";
 import * as service from "./auth.service";
+import { linkUseLimit, resetRequestLimit } from "./request-limits";
 import { signInThrottle } from "./sign-in-throttle";
 
 const NoBody = z.object({}).strict();
@@ -68,6 +69,7 @@ export function authRouter() {
 
   router.post(
     "/auth/password-reset",
+    resetRequestLimit(),
     handle({ body: PasswordResetRequestSchema }, async ({ body, requestId, ip }) => {
       await service.requestPasswordReset(body.email, { requestId, ip });
       return {
@@ -85,12 +87,16 @@ export function authRouter() {
     }),
   );
 
+  // The browser that sets the new password becomes a known device: the owner can sign in from
+  // it even while a stranger's guesses keep the account closed to new browsers.
   router.post(
     "/auth/password-reset/:token",
-    handle(
+    linkUseLimit(),
+    handleWithSession(
       { params: TokenParamsSchema, body: PasswordResetCompleteSchema },
-      async ({ params, body, requestId, ip }) => {
-        await service.completePasswordReset(params.token, body.password, { requestId, ip });
+      async ({ params, body, requestId, ip, session }) => {
+        const { email } = await service.completePasswordReset(params.token, body.password, { requestId, ip });
+        session.rememberDevice(email);
         return { status: 204 };
       },
     ),

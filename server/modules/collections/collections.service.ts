@@ -7,8 +7,9 @@ import { sequelize } from "../../db/sequelize";
 import { AppError, badRequest, conflict, forbidden, notFound } from "../../lib/app-error";
 import { addDays, localDate } from "../../lib/clock";
 import type { Caller } from "../../middleware/handle";
-import * as repo from "./collections.repository";
-import { refreshRound } from "../rounds/rounds.service";
+import { lockHousehold } from "../households";
+import * as repo from "../rounds";
+import { refreshRound } from "../rounds";
 
 /** How far ahead a collection may be asked for, days. */
 export const MAX_DAYS_AHEAD = 60;
@@ -36,7 +37,7 @@ export async function createRequest(
   }
   return sequelize().transaction(async (transaction) => {
     // One live request per household and day; the household row lock serialises two taps.
-    await repo.lockHousehold(transaction, householdId);
+    await lockHousehold(transaction, householdId);
     if (await repo.hasLiveRequest(householdId, input.forDate, transaction)) {
       throw conflict(
         `Your household already asked for a collection on ${input.forDate}. Cancel it first to change the buckets.`,

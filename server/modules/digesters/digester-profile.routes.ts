@@ -14,15 +14,6 @@ export function digesterProfileRouter() {
   const router = Router();
   const stewards = requireRole("steward", "coordinator");
 
-  router.get(
-    "/digesters/:id",
-    stewards,
-    requireStewardOf("id"),
-    handle({ params: DigesterIdParamsSchema }, async ({ params, caller }) => ({
-      body: await service.digesterDetail(caller!, params.id),
-    })),
-  );
-
   router.patch(
     "/digesters/:id",
     stewards,

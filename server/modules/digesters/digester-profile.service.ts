@@ -9,20 +9,19 @@ import type {
   DigesterProfile,
   UpdateDigesterProfileParsed,
 } from "../../../shared/schemas/digester";
-import type { DigesterDetail } from "../../../shared/schemas/steward";
 import { env } from "../../config/env";
 import { sequelize } from "../../db/sequelize";
 import { badRequest, notFound } from "../../lib/app-error";
-import { addDays, localDate } from "../../lib/clock";
+import { addDays, localDate, startOfLocalDay } from "../../lib/clock";
 import type { Caller } from "../../middleware/handle";
 import { assertStewardOf } from "../../middleware/require-role";
-import { startOfLocalDay } from "../readings/local-day";
-import { stewardDays } from "../steward/steward.service";
 import * as stateRepo from "./digester-state.repository";
-import { loadDigestersToday } from "./digester-state.service";
-import * as repo from "./digester-profile.repository";
+import * as repo from "./digesters.repository";
+import { findLedgerCaps } from "./ledger.repository";
+import { findDailyReadings } from "./readings.repository";
 
-function toProfile(d: stateRepo.DigesterRow, stewards: { id: number; name: string }[]): DigesterProfile {
+/** A digester as its page shows it, with its stewards. */
+export function toProfile(d: stateRepo.DigesterRow, stewards: { id: number; name: string }[]): DigesterProfile {
   return {
     id: d.id,
     name: d.name,
@@ -45,15 +44,6 @@ function toProfile(d: stateRepo.DigesterRow, stewards: { id: number; name: strin
     bucketKgPerLitre: d.bucketKgPerLitre,
     stewards,
   };
-}
-
-/** `GET /api/digesters/:id`: the profile and the steward's view of today. */
-export async function digesterDetail(caller: Caller, digesterId: number, now = new Date()): Promise<DigesterDetail> {
-  assertStewardOf(caller, digesterId);
-  const [state] = await loadDigestersToday([digesterId], { now });
-  if (!state) throw notFound("This digester");
-  const [stewards, [day]] = await Promise.all([repo.findStewards(digesterId), stewardDays([state], now)]);
-  return { profile: toProfile(state.digester, stewards), day: day! };
 }
 
 /**
@@ -103,7 +93,7 @@ export async function updateProfile(
     }
     await repo.updateProfile(t, digesterId, fields);
     const [after] = await stateRepo.findDigesters([digesterId], { transaction: t });
-    return toProfile(after!, await repo.findStewards(digesterId, t));
+    return toProfile(after!, await repo.findStewards(digesterId, { transaction: t }));
   });
 }
 
@@ -119,7 +109,7 @@ export async function setStatus(
     if (!current) throw notFound("This digester");
     await repo.setStatus(t, digesterId, input.status, input.status === "active" ? null : input.reason);
     const [after] = await stateRepo.findDigesters([digesterId], { transaction: t });
-    return toProfile(after!, await repo.findStewards(digesterId, t));
+    return toProfile(after!, await repo.findStewards(digesterId, { transaction: t }));
   });
 }
 
@@ -158,8 +148,8 @@ export async function digesterHistory(
   const loadFrom = addDays(fromDay, -GAS_MEAN_DAYS);
   const [loads, readings, caps] = await Promise.all([
     stateRepo.findDailyLoads([digesterId], loadFrom, toDay),
-    repo.findDailyReadings(digesterId, startOfLocalDay(addDays(fromDay, -TEMPERATURE_CARRY_DAYS)), env().TIMEZONE),
-    repo.findLedgerCaps(digesterId, fromDay, toDay),
+    findDailyReadings(digesterId, startOfLocalDay(addDays(fromDay, -TEMPERATURE_CARRY_DAYS)), env().TIMEZONE),
+    findLedgerCaps(digesterId, fromDay, toDay),
   ]);
   const loadKgVs = new Map<string, number>();
   const loadKgScraps = new Map<string, number>();

@@ -6,13 +6,16 @@
  */
 import type { Transaction } from "sequelize";
 import {
+  closedPhrase,
+  closedReason,
   computeFeedBudget,
   latestReadingWithin,
   pickDigesterTemperature,
+  startUpDay,
   type FeedBudget,
   type PickedTemperature,
 } from "../../../shared/domain";
-import { addDays, daysBetween, localDate } from "../../lib/clock";
+import { addDays, localDate } from "../../lib/clock";
 import * as repo from "./digester-state.repository";
 
 export interface DigesterToday {
@@ -68,10 +71,9 @@ export function digesterToday(
     }
   }
   const previous7DaysKgVs = Array.from({ length: 7 }, (_, i) => committed.get(addDays(today, i - 7)) ?? 0);
-  const daysSinceStart = daysBetween(digester.startedOn, today);
-  // A digester in its first 42 days is in start-up (DOMAIN.md §2 limit 4); its first day counts as day 0.
-  const inStartUp = daysSinceStart >= 0 && daysSinceStart < 42;
-  const hasHistory = daysSinceStart >= 7;
+  // In start-up for its first START_UP_RAMP_DAYS days (DOMAIN.md §2 limit 4); its first day is day 0.
+  const { startUpDay: daysSinceStart, hasWeekOfHistory: hasHistory } = startUpDay(digester.startedOn, today);
+  const inStartUp = daysSinceStart !== null;
   const budget = computeFeedBudget({
     workingVolumeM3: digester.workingVolumeM3,
     temperatureC: temperature.temperatureC,
@@ -104,13 +106,12 @@ export function digesterToday(
 }
 
 function closedBudget(budget: FeedBudget, digester: repo.DigesterRow): FeedBudget {
-  const why = digester.status === "resting" ? "resting" : "offline";
   return {
     ...budget,
     budgetKgVs: 0 as FeedBudget["budgetKgVs"],
     budgetKgScraps: 0 as FeedBudget["budgetKgScraps"],
     budgetBuckets: 0,
-    explanation: `This digester is ${why}${digester.statusReason ? ` (${digester.statusReason})` : ""}: it takes no scraps until a steward sets it active again.`,
+    explanation: `${closedPhrase("This digester", closedReason(digester)!)}: it takes no scraps until a steward sets it active again.`,
   };
 }
 

@@ -12,16 +12,14 @@ import { AppError, badRequest, conflict, notFound } from "../../lib/app-error";
 import { addDays, localDate } from "../../lib/clock";
 import type { Caller } from "../../middleware/handle";
 import {
-  DEFAULT_B0_M3_PER_KG_VS,
-  DEFAULT_BURNER_LITRES_PER_HOUR,
-  DEFAULT_DIGESTATE_OUT_FRACTION,
   DEFAULT_KG_VS_PER_FRESH_KG,
-  DEFAULT_METHANE_FRACTION,
-  cookingMinutes,
-  digestateLitresFromFed,
+  closedPhrase,
+  closedReason,
+  decideWelcome,
   dropOffQuantities,
+  nearestWithRoom,
+  roomTodayKgVs as roomToday,
 } from "../../../shared/domain";
-import { haversineM } from "../../../shared/domain/geo";
 import {
   DROP_OFF_STATUS_LABELS,
   type CreateDropOffParsed,
@@ -30,16 +28,12 @@ import {
   type Welcome,
   type WelcomeSuggestion,
 } from "../../../shared/schemas/drop-offs";
-import type { HouseholdImpact } from "../../../shared/schemas/households";
-import { loadDigestersToday, type DigesterToday } from "../digesters/digester-state.service";
-import { findHousehold } from "../households/households.repository";
-import * as repo from "./drop-offs.repository";
+import * as repo from "../digesters";
+import { loadDigestersToday, type DigesterToday } from "../digesters";
+import { findHousehold } from "../households";
 import * as idempotency from "./idempotency.repository";
 
 export const CREATE_ROUTE = "POST /api/drop-offs";
-
-/** kg VS compared with a tolerance, so a drop-off that exactly fills the room is welcome despite rounding. */
-const KG_VS_TOLERANCE = 1e-6;
 
 const noHousehold = () =>
   new AppError(409, "household_required", "Register your household first: drop-offs belong to a household.");
@@ -66,16 +60,30 @@ export function requestHash(route: string, body: unknown): string {
     .digest("hex");
 }
 
-/** Room at a digester today before a new drop-off: budget (fed and accepted already off) minus what is waiting, kg VS. */
+/** Room at a digester today before a new drop-off, kg VS (shared/domain/room.ts). */
 export function roomTodayKgVs(state: DigesterToday): number {
-  if (state.closed) return 0;
-  return Math.max(0, state.budget.budgetKgVs - state.pendingTodayKgVs);
+  return roomToday({
+    closed: state.closed,
+    budgetKgVs: state.budget.budgetKgVs,
+    pendingKgVs: state.pendingTodayKgVs,
+  });
 }
+
+/** A digester's state as a candidate for shared/domain/room.ts. */
+const candidate = (s: DigesterToday) => ({
+  id: s.digester.id,
+  lat: s.digester.lat,
+  lng: s.digester.lng,
+  closed: s.closed,
+  roomKgVs: roomTodayKgVs(s),
+  state: s,
+});
 
 /**
  * Whether the chosen digester welcomes `dropOffKgVs` today, and if not, the nearest other active
  * digester with room for it (straight-line distance from the household, or from the chosen
- * digester when the household has no location), else tomorrow at the same digester.
+ * digester when the household has no location), else tomorrow at the same digester. The
+ * decision is shared/domain/room.ts's; this puts it in the resident's words.
  */
 export function assessWelcome(input: {
   chosen: DigesterToday;
@@ -86,9 +94,16 @@ export function assessWelcome(input: {
   forDate: string;
   today: string;
 }): Welcome {
-  const { chosen, dropOffKgVs } = input;
+  const { chosen } = input;
   const name = chosen.digester.name;
-  if (input.forDate !== input.today) {
+  const decision = decideWelcome({
+    chosen: candidate(chosen),
+    all: input.all.map(candidate),
+    loadKgVs: input.dropOffKgVs,
+    from: input.from,
+    forTomorrow: input.forDate !== input.today,
+  });
+  if (decision.basis === "tomorrow") {
     return {
       welcomed: true,
       basis: "tomorrow",
@@ -96,9 +111,8 @@ export function assessWelcome(input: {
       message: `Logged for tomorrow at ${name}. Tomorrow's room depends on tomorrow's readings; the steward will confirm when you bring it.`,
     };
   }
-  const roomKgVs = roomTodayKgVs(chosen);
-  const roomKgScraps = round(roomKgVs / DEFAULT_KG_VS_PER_FRESH_KG, 1);
-  if (dropOffKgVs <= roomKgVs + KG_VS_TOLERANCE) {
+  const roomKgScraps = round(decision.roomKgVs / DEFAULT_KG_VS_PER_FRESH_KG, 1);
+  if (decision.welcomed) {
     return {
       welcomed: true,
       basis: "today",
@@ -106,29 +120,22 @@ export function assessWelcome(input: {
       message: `Welcome at ${name} today: it had room for about ${kgText(roomKgScraps)} of scraps before yours (${kgText(input.dropOffFreshKg)}).`,
     };
   }
-  const origin = input.from ?? { lat: chosen.digester.lat, lng: chosen.digester.lng };
-  const alternatives = input.all
-    .filter(
-      (s) => s.digester.id !== chosen.digester.id && !s.closed && dropOffKgVs <= roomTodayKgVs(s) + KG_VS_TOLERANCE,
-    )
-    .map((s) => ({ s, distanceM: haversineM(origin, s.digester) as number }))
-    .sort((a, b) => a.distanceM - b.distanceM);
   const why =
-    roomKgVs <= KG_VS_TOLERANCE
-      ? `${name} has no room left today. ${chosen.budget.explanation}`
-      : `${name} has room for only about ${kgText(roomKgScraps)} today, less than your ${kgText(input.dropOffFreshKg)}.`;
-  const best = alternatives[0];
+    decision.reason === "notEnoughRoom"
+      ? `${name} has room for only about ${kgText(roomKgScraps)} today, less than your ${kgText(input.dropOffFreshKg)}.`
+      : `${name} has no room left today. ${chosen.budget.explanation}`;
+  const best = decision.alternative;
   let suggestion: WelcomeSuggestion;
   let advice: string;
   if (best) {
     suggestion = {
       kind: "digester",
-      digesterId: best.s.digester.id,
-      digesterName: best.s.digester.name,
+      digesterId: best.digester.id,
+      digesterName: best.digester.state.digester.name,
       distanceM: input.from ? Math.round(best.distanceM) : null,
-      roomKgScraps: round(roomTodayKgVs(best.s) / DEFAULT_KG_VS_PER_FRESH_KG, 1),
+      roomKgScraps: round(best.digester.roomKgVs / DEFAULT_KG_VS_PER_FRESH_KG, 1),
     };
-    advice = `${best.s.digester.name} has room today${input.from ? ` (about ${Math.round(best.distanceM)} m from your home)` : ""}.`;
+    advice = `${best.digester.state.digester.name} has room today${input.from ? ` (about ${Math.round(best.distanceM)} m from your home)` : ""}.`;
   } else {
     const tomorrow = addDays(input.today, 1);
     suggestion = { kind: "tomorrow", forDate: tomorrow, digesterId: chosen.digester.id, digesterName: name };
@@ -137,19 +144,15 @@ export function assessWelcome(input: {
   return { welcomed: false, basis: "today", roomKgScraps, message: `${why} ${advice}`, suggestion };
 }
 
+/** Why a closed digester takes no drop-off, and the nearest open digester with any room today. */
 function closedMessage(
   state: DigesterToday,
   all: readonly DigesterToday[],
   from: { lat: number; lng: number } | null,
 ): string {
-  const d = state.digester;
-  const origin = from ?? { lat: d.lat, lng: d.lng };
-  const open = all
-    .filter((s) => !s.closed && roomTodayKgVs(s) > KG_VS_TOLERANCE)
-    .sort((a, b) => (haversineM(origin, a.digester) as number) - (haversineM(origin, b.digester) as number));
-  const reason = d.statusReason ? ` (${d.statusReason})` : "";
-  const next = open[0] ? ` ${open[0].digester.name} has room today.` : "";
-  return `${d.name} is ${d.status}${reason}: it takes no drop-offs until a steward sets it active again.${next}`;
+  const open = nearestWithRoom(candidate(state), all.map(candidate), 0, from);
+  const next = open ? ` ${open.digester.state.digester.name} has room today.` : "";
+  return `${closedPhrase(state.digester.name, closedReason(state.digester)!)}: it takes no drop-offs until a steward sets it active again.${next}`;
 }
 
 export interface CreateResult {
@@ -301,67 +304,4 @@ export async function cancelMine(caller: Caller, id: number): Promise<DropOff> {
   }
   const [row] = await repo.findHouseholdDropOffs(householdId, { id });
   return row!;
-}
-
-/**
- * What the household's fed scraps became (estimates):
- * methane m³ = kg VS fed × B0 (0.40 m³ CH4/kg VS, the ultimate yield [judgement in 0.348–0.435,
- * read: Zhang et al. 2007]); biogas m³ = methane ÷ 0.60 CH4 share [read: FAO/CMS 1996 Table 1];
- * cooking minutes = biogas L ÷ 350 L/h × 60 [read: Tilley et al. 2014, D.7]; digestate L =
- * 0.92 × (fresh kg ≈ L + dilution water the steward recorded) [read: NNFCC]. B0 is what the
- * scraps could give at most: an unheated digester in a cold month gives less, so the figures are
- * labelled "up to".
- */
-export async function householdImpact(caller: Caller): Promise<HouseholdImpact> {
-  const totals: repo.ImpactTotals =
-    caller.householdId === null
-      ? {
-          dropOffCount: 0,
-          pending: 0,
-          accepted: 0,
-          fed: 0,
-          turnedAway: 0,
-          cancelled: 0,
-          fedFreshKg: 0,
-          fedKgVs: 0,
-          waterLitres: 0,
-          firstFedOn: null,
-          lastFedOn: null,
-        }
-      : await repo.impactTotals(caller.householdId);
-  const methaneM3 = totals.fedKgVs * DEFAULT_B0_M3_PER_KG_VS;
-  const biogasM3 = methaneM3 / DEFAULT_METHANE_FRACTION;
-  const digestateLitres = digestateLitresFromFed(
-    totals.fedFreshKg + totals.waterLitres,
-    DEFAULT_DIGESTATE_OUT_FRACTION,
-  ) as number;
-  return {
-    dropOffCount: totals.dropOffCount,
-    counts: {
-      pending: totals.pending,
-      accepted: totals.accepted,
-      fed: totals.fed,
-      turnedAway: totals.turnedAway,
-      cancelled: totals.cancelled,
-    },
-    fedFreshKg: round(totals.fedFreshKg, 2),
-    fedKgVs: round(totals.fedKgVs, 3),
-    methaneM3: round(methaneM3, 3),
-    biogasM3: round(biogasM3, 3),
-    cookingMinutes: Math.round(cookingMinutes(biogasM3 * 1000, DEFAULT_BURNER_LITRES_PER_HOUR)),
-    dilutionWaterLitres: round(totals.waterLitres, 1),
-    digestateLitres: round(digestateLitres, 1),
-    firstFedOn: totals.firstFedOn,
-    lastFedOn: totals.lastFedOn,
-    method: {
-      b0M3PerKgVs: DEFAULT_B0_M3_PER_KG_VS,
-      methaneFraction: DEFAULT_METHANE_FRACTION,
-      burnerLitresPerHour: DEFAULT_BURNER_LITRES_PER_HOUR,
-      digestateOutFraction: DEFAULT_DIGESTATE_OUT_FRACTION,
-      sentence:
-        `Gas is an upper estimate: the volatile solids of your fed scraps × ${DEFAULT_B0_M3_PER_KG_VS} m³ of methane per kg (the most food scraps give), ` +
-        `as biogas with ${Math.round(DEFAULT_METHANE_FRACTION * 100)} % methane, cooking at ${DEFAULT_BURNER_LITRES_PER_HOUR} litres an hour; ` +
-        `fertiliser is ${Math.round(DEFAULT_DIGESTATE_OUT_FRACTION * 100)} % of the scraps plus the water they were mixed with.`,
-    },
-  };
 }

@@ -3,6 +3,7 @@
  * Field"): one row per (person, key), written in the same transaction as what the request created.
  */
 import { QueryTypes, type Transaction } from "sequelize";
+import { models } from "../../db/models";
 import { sequelize } from "../../db/sequelize";
 
 export interface StoredAnswer {
@@ -22,6 +23,7 @@ export async function claimKey(
   transaction: Transaction,
   input: { personId: number; key: string; route: string; requestHash: string },
 ): Promise<boolean> {
+  // SQL: ON CONFLICT DO NOTHING claims the key atomically (a concurrent retry waits, then finds it).
   const rows = await sequelize().query(
     `INSERT INTO idempotency_keys (person_id, key, route, request_hash, status_code, response)
      VALUES ($1, $2, $3, $4, 0, 'null'::jsonb)
@@ -33,12 +35,11 @@ export async function claimKey(
 }
 
 export async function findKey(transaction: Transaction, personId: number, key: string): Promise<StoredAnswer | null> {
-  const rows = await sequelize().query<{ route: string; requestHash: string; statusCode: number; response: unknown }>(
-    `SELECT route, request_hash AS "requestHash", status_code AS "statusCode", response
-       FROM idempotency_keys WHERE person_id = $1 AND key = $2`,
-    { bind: [personId, key], type: QueryTypes.SELECT, transaction },
-  );
-  const r = rows[0];
+  const r = await models().IdempotencyKey.findOne({
+    attributes: ["route", "requestHash", "statusCode", "response"],
+    where: { personId, key },
+    transaction,
+  });
   if (!r) return null;
   return {
     route: r.route,
@@ -59,6 +60,7 @@ export async function completeKey(
   statusCode: number,
   responseText: string,
 ): Promise<void> {
+  // SQL: to_jsonb keeps the answer's exact JSON text (as a jsonb string), so a replay sends the same bytes.
   await sequelize().query(
     `UPDATE idempotency_keys SET status_code = $3, response = to_jsonb($4::text) WHERE person_id = $1 AND key = $2`,
     {

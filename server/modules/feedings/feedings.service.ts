@@ -8,15 +8,11 @@ import {
 import type { HandFeedingResult } from "../../../shared/schemas/steward";
 import { sequelize } from "../../db/sequelize";
 import { badRequest, notFound } from "../../lib/app-error";
-import { addDays, localDate } from "../../lib/clock";
+import { addDays, localDate, startOfLocalDay } from "../../lib/clock";
 import type { Caller } from "../../middleware/handle";
 import { assertStewardOf } from "../../middleware/require-role";
-import { findDigesters } from "../digesters/digester-state.repository";
-import { loadDigestersToday } from "../digesters/digester-state.service";
-import { startOfLocalDay } from "../readings/local-day";
+import * as digesters from "../digesters";
 import { stewardBudget } from "../steward/steward-view";
-import { reserveToday, suggestedWaterLitres, withLedgerGuard } from "./feed-capacity";
-import * as repo from "./feedings.repository";
 
 const DEFAULT_RANGE_DAYS = 60;
 const MAX_RANGE_DAYS = 3 * 366;
@@ -40,9 +36,9 @@ export async function createFeeding(
   if (fedOn < addDays(today, -MAX_LATE_FEEDING_DAYS)) {
     throw badRequest("That day is too long ago.", { fedOn: `Record feedings within ${MAX_LATE_FEEDING_DAYS} days.` });
   }
-  return withLedgerGuard(() =>
+  return digesters.withLedgerGuard(() =>
     sequelize().transaction(async (t) => {
-      const [state] = await loadDigestersToday([digesterId], { now, transaction: t, lock: true });
+      const [state] = await digesters.loadDigestersToday([digesterId], { now, transaction: t, lock: true });
       if (!state) throw notFound("This digester");
       const quantities = dropOffQuantities({
         weightKg: input.freshKg,
@@ -52,12 +48,12 @@ export async function createFeeding(
       const kgVs = Math.round(quantities.kgVs * 10_000) / 10_000;
       let overrideReason: string | null = null;
       if (fedOn === today) {
-        const reservation = await reserveToday(t, state, kgVs, input.override);
+        const reservation = await digesters.reserveToday(t, state, kgVs, input.override);
         if (reservation.overridden) overrideReason = input.override!.reason;
       } else {
-        await repo.widenLedgerDay(t, digesterId, fedOn, kgVs);
+        await digesters.widenLedgerDay(t, digesterId, fedOn, kgVs);
       }
-      const feeding = await repo.insertFeeding(t, {
+      const feeding = await digesters.insertFeeding(t, {
         digesterId,
         fedOn,
         // A late entry is stamped at local noon of its day.
@@ -66,7 +62,7 @@ export async function createFeeding(
         kgVs,
         waterLitres:
           input.waterLitres ??
-          suggestedWaterLitres(input.freshKg, input.mix, input.citrusPercent, state.digester.targetTsPercent),
+          digesters.suggestedWaterLitres(input.freshKg, input.mix, input.citrusPercent, state.digester.targetTsPercent),
         dropOffId: null,
         personId: caller.id,
         mix: input.mix,
@@ -74,7 +70,7 @@ export async function createFeeding(
         overrideReason,
         note: input.note ?? null,
       });
-      const [after] = await loadDigestersToday([digesterId], { now, transaction: t });
+      const [after] = await digesters.loadDigestersToday([digesterId], { now, transaction: t });
       return { feeding, budget: stewardBudget(after!) };
     }),
   );
@@ -98,8 +94,8 @@ export async function listFeedings(
   now = new Date(),
 ): Promise<Feeding[]> {
   assertStewardOf(caller, digesterId);
-  const [digester] = await findDigesters([digesterId]);
+  const [digester] = await digesters.findDigesters([digesterId]);
   if (!digester) throw notFound("This digester");
   const { fromDay, toDay } = feedingRange(query, now);
-  return repo.listFeedings([digesterId], fromDay, toDay);
+  return digesters.listFeedings([digesterId], fromDay, toDay);
 }

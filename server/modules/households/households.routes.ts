@@ -3,7 +3,6 @@ import { handle } from "../../middleware/handle";
 import { requireAuth } from "../../middleware/require-auth";
 import { requireRole } from "../../middleware/require-role";
 import { AddMemberSchema, RegisterHouseholdSchema, UpdateHouseholdSchema } from "../../../shared/schemas/households";
-import { householdImpact } from "../drop-offs/drop-offs.service";
 import * as service from "./households.service";
 
 /**
@@ -56,7 +55,7 @@ export function householdsRouter() {
   router.get(
     "/households/mine/impact",
     requireAuth,
-    handle({}, async ({ caller }) => ({ body: await householdImpact(caller!) })),
+    handle({}, async ({ caller }) => ({ body: await service.householdImpact(caller!) })),
   );
 
   return router;

@@ -22,8 +22,11 @@ import type {
 } from "../../../shared/schemas/households";
 import { enqueueEmail } from "../outbox/outbox.service";
 import { invitationEmail } from "../outbox/templates";
-import * as peopleRepo from "../people/people.repository";
-import { INVITATION_TTL_MS } from "../people/people.service";
+import { DEFAULT_IMPACT_FACTORS, fedScrapsImpact, impactMethodSentence } from "../../../shared/domain/impact";
+import type { HouseholdImpact } from "../../../shared/schemas/households";
+import { digesterPoints, impactTotals, type DigesterPoint, type ImpactTotals } from "../digesters";
+import * as people from "../people";
+import { INVITATION_TTL_MS } from "../people";
 import * as repo from "./households.repository";
 
 /** A household with more members than this is more likely a mistake than a home [judgement]. */
@@ -39,9 +42,9 @@ const noHousehold = () =>
 /** The nearest active digester to a point (great-circle distance), or null when none is active. */
 export function nearestDigester(
   from: { lat: number; lng: number },
-  digesters: readonly repo.DigesterPoint[],
-): { digester: repo.DigesterPoint; distanceM: number } | null {
-  let best: { digester: repo.DigesterPoint; distanceM: number } | null = null;
+  digesters: readonly DigesterPoint[],
+): { digester: DigesterPoint; distanceM: number } | null {
+  let best: { digester: DigesterPoint; distanceM: number } | null = null;
   for (const d of digesters) {
     if (d.status !== "active") continue;
     const distanceM = haversineM(from, d) as number;
@@ -50,10 +53,7 @@ export function nearestDigester(
   return best;
 }
 
-function householdDigester(
-  h: repo.HouseholdRecord,
-  digesters: readonly repo.DigesterPoint[],
-): HouseholdDigester | null {
+function householdDigester(h: repo.HouseholdRecord, digesters: readonly DigesterPoint[]): HouseholdDigester | null {
   const location = h.lat !== null && h.lng !== null ? { lat: h.lat, lng: h.lng } : null;
   if (h.assignedDigesterId !== null) {
     const d = digesters.find((x) => x.id === h.assignedDigesterId);
@@ -79,8 +79,8 @@ function householdDigester(
 async function loadHousehold(caller: Caller, householdId: number): Promise<Household | null> {
   const [h, members, points] = await Promise.all([
     repo.findHousehold(householdId),
-    repo.findMembers(householdId),
-    repo.digesterPoints(),
+    people.findMembers(householdId),
+    digesterPoints(),
   ]);
   if (!h) return null;
   return {
@@ -106,7 +106,7 @@ export async function register(
   input: { name: string; addressText: string; location: { lat: number; lng: number }; declaredWeeklyKg?: number },
 ): Promise<MyHousehold> {
   const householdId = await sequelize().transaction(async (t) => {
-    const person = await repo.lockPersonHousehold(t, caller.id);
+    const person = await people.lockPersonHousehold(t, caller.id);
     if (!person) throw forbidden();
     if (person.householdId !== null) {
       throw conflict(
@@ -120,7 +120,7 @@ export async function register(
       lng: input.location.lng,
       declaredWeeklyKg: input.declaredWeeklyKg,
     });
-    await repo.attachPerson(t, caller.id, id);
+    await people.attachPerson(t, caller.id, id);
     return id;
   });
   return { household: await loadHousehold({ ...caller, householdId }, householdId) };
@@ -163,19 +163,20 @@ export async function addMember(caller: Caller, input: Required<AddMember>, now 
   const expiresAt = new Date(now.getTime() + INVITATION_TTL_MS);
   try {
     const personId = await sequelize().transaction(async (t) => {
-      if (await peopleRepo.lockPerson(t, { email: input.email })) throw alreadyKnown();
-      if ((await repo.countMembers(t, householdId)) >= MAX_HOUSEHOLD_MEMBERS) {
+      await people.lockInvitationAddress(t, input.email);
+      if (await people.lockPerson(t, { email: input.email })) throw alreadyKnown();
+      if ((await people.countMembers(t, householdId)) >= MAX_HOUSEHOLD_MEMBERS) {
         throw conflict(
           `A household has at most ${MAX_HOUSEHOLD_MEMBERS} members. Ask a coordinator if yours needs more.`,
         );
       }
-      const id = await peopleRepo.insertInvitedPerson(t, {
+      const id = await people.insertInvitedPerson(t, {
         email: input.email,
         name: input.name || input.email.split("@")[0]!.slice(0, 120),
         roles: ["resident"],
         householdId,
       });
-      await peopleRepo.insertInvitation(t, {
+      await people.insertInvitation(t, {
         tokenHash: hash,
         email: input.email,
         name: input.name,
@@ -220,4 +221,54 @@ export async function listHouseholds(caller: Caller): Promise<HouseholdRow[]> {
     memberCount: h.memberCount,
     isMine: h.id === caller.householdId,
   }));
+}
+
+const round = (v: number, places: number) => Math.round(v * 10 ** places) / 10 ** places;
+
+/** Before a household has a drop-off. */
+const NO_TOTALS: ImpactTotals = {
+  dropOffCount: 0,
+  pending: 0,
+  accepted: 0,
+  fed: 0,
+  turnedAway: 0,
+  cancelled: 0,
+  fedFreshKg: 0,
+  fedKgVs: 0,
+  waterLitres: 0,
+  firstFedOn: null,
+  lastFedOn: null,
+};
+
+/** `GET /api/households/mine/impact`: what the household's fed scraps became (shared/domain/impact.ts, upper estimates). */
+export async function householdImpact(caller: Caller): Promise<HouseholdImpact> {
+  const totals = caller.householdId === null ? NO_TOTALS : await impactTotals(caller.householdId);
+  const impact = fedScrapsImpact(totals);
+  const f = DEFAULT_IMPACT_FACTORS;
+  return {
+    dropOffCount: totals.dropOffCount,
+    counts: {
+      pending: totals.pending,
+      accepted: totals.accepted,
+      fed: totals.fed,
+      turnedAway: totals.turnedAway,
+      cancelled: totals.cancelled,
+    },
+    fedFreshKg: round(totals.fedFreshKg, 2),
+    fedKgVs: round(totals.fedKgVs, 3),
+    methaneM3: round(impact.methaneM3, 3),
+    biogasM3: round(impact.biogasM3, 3),
+    cookingMinutes: Math.round(impact.cookingMinutes),
+    dilutionWaterLitres: round(totals.waterLitres, 1),
+    digestateLitres: round(impact.digestateLitres, 1),
+    firstFedOn: totals.firstFedOn,
+    lastFedOn: totals.lastFedOn,
+    method: {
+      b0M3PerKgVs: f.b0M3PerKgVs,
+      methaneFraction: f.methaneFraction,
+      burnerLitresPerHour: f.burnerLitresPerHour,
+      digestateOutFraction: f.digestateOutFraction,
+      sentence: impactMethodSentence(f),
+    },
+  };
 }

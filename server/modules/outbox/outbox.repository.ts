@@ -1,4 +1,10 @@
-import { QueryTypes, type Transaction } from "sequelize";
+/**
+ * `outbox_emails`, owned by the outbox module: e-mails written in their cause's transaction and
+ * sent later. Plain reads and writes through the OutboxEmail model; SQL for the ON CONFLICT
+ * insert and the advisory lock.
+ */
+import { Op, QueryTypes, type Transaction, fn, literal } from "sequelize";
+import { models } from "../../db/models";
 import { sequelize } from "../../db/sequelize";
 import type { OutboxEmailRow } from "../../../shared/schemas/people";
 
@@ -23,6 +29,7 @@ export interface DueEmail {
 
 /** Writes the message inside the caller's transaction, so it exists exactly when its cause does. */
 export async function insertEmail(transaction: Transaction, email: NewOutboxEmail): Promise<number> {
+  // SQL: ON CONFLICT (dedupe_key) DO NOTHING, so a repeated cause queues one e-mail.
   const rows = await sequelize().query<{ id: string }>(
     `INSERT INTO outbox_emails (to_address, subject, text_body, html_body, message_id, dedupe_key)
      VALUES ($1, $2, $3, $4, $5, $6)
@@ -39,6 +46,7 @@ export async function insertEmail(transaction: Transaction, email: NewOutboxEmai
 
 /** Takes the transaction-scoped advisory lock; false when another process is already sending. */
 export async function tryLock(transaction: Transaction, lockName: string): Promise<boolean> {
+  // SQL: a transaction-scoped advisory lock.
   const rows = await sequelize().query<{ locked: boolean }>(
     "SELECT pg_try_advisory_xact_lock(hashtext($1)) AS locked",
     {
@@ -51,29 +59,23 @@ export async function tryLock(transaction: Transaction, lockName: string): Promi
 }
 
 export async function findDue(transaction: Transaction, now: Date, limit: number): Promise<DueEmail[]> {
-  const rows = await sequelize().query<{
-    id: string;
-    to_address: string;
-    subject: string;
-    text_body: string;
-    html_body: string | null;
-    message_id: string;
-    attempts: number;
-  }>(
-    `SELECT id, to_address, subject, text_body, html_body, message_id, attempts
-       FROM outbox_emails
-      WHERE status = 'pending' AND next_attempt_at <= $1
-      ORDER BY next_attempt_at, id
-      LIMIT $2`,
-    { bind: [now, limit], type: QueryTypes.SELECT, transaction },
-  );
+  const rows = await models().OutboxEmail.findAll({
+    attributes: ["id", "toAddress", "subject", "textBody", "htmlBody", "messageId", "attempts"],
+    where: { status: "pending", nextAttemptAt: { [Op.lte]: now } },
+    order: [
+      ["nextAttemptAt", "ASC"],
+      ["id", "ASC"],
+    ],
+    limit,
+    transaction,
+  });
   return rows.map((r) => ({
-    id: Number(r.id),
-    to: r.to_address,
+    id: r.id,
+    to: r.toAddress,
     subject: r.subject,
-    text: r.text_body,
-    html: r.html_body,
-    messageId: r.message_id,
+    text: r.textBody,
+    html: r.htmlBody,
+    messageId: r.messageId,
     attempts: r.attempts,
   }));
 }
@@ -83,65 +85,47 @@ export async function findDue(transaction: Transaction, now: Date, limit: number
 
 /** Counts the attempt and leases the row until `leaseUntil`, so a crash mid-send retries it later. */
 export async function claim(id: number, leaseUntil: Date): Promise<boolean> {
-  const rows = await sequelize().query(
-    `UPDATE outbox_emails SET attempts = attempts + 1, next_attempt_at = $2
-      WHERE id = $1 AND status = 'pending' RETURNING id`,
-    { bind: [id, leaseUntil], type: QueryTypes.SELECT },
+  const [count] = await models().OutboxEmail.update(
+    { attempts: literal("attempts + 1") as unknown as number, nextAttemptAt: leaseUntil },
+    { where: { id, status: "pending" } },
   );
-  return rows.length === 1;
+  return count === 1;
 }
 
 export async function markSent(id: number): Promise<void> {
-  await sequelize().query(
-    `UPDATE outbox_emails SET status = 'sent', sent_at = now(), last_error = NULL WHERE id = $1`,
-    {
-      bind: [id],
-    },
+  await models().OutboxEmail.update(
+    { status: "sent", sentAt: fn("now") as unknown as Date, lastError: null },
+    { where: { id } },
   );
 }
 
 export async function markRetry(id: number, nextAttemptAt: Date, error: string): Promise<void> {
-  await sequelize().query(
-    `UPDATE outbox_emails SET next_attempt_at = $2, last_error = $3 WHERE id = $1 AND status = 'pending'`,
-    {
-      bind: [id, nextAttemptAt, error],
-    },
-  );
+  await models().OutboxEmail.update({ nextAttemptAt, lastError: error }, { where: { id, status: "pending" } });
 }
 
 export async function markFailed(id: number, error: string): Promise<void> {
-  await sequelize().query(`UPDATE outbox_emails SET status = 'failed', last_error = $2 WHERE id = $1`, {
-    bind: [id, error],
-  });
+  await models().OutboxEmail.update({ status: "failed", lastError: error }, { where: { id } });
 }
 
 /** Messages not delivered (yet): failed ones first, newest first. */
 export async function listUndelivered(limit: number): Promise<OutboxEmailRow[]> {
-  const rows = await sequelize().query<{
-    id: string;
-    to_address: string;
-    subject: string;
-    status: "pending" | "failed";
-    attempts: number;
-    last_error: string | null;
-    created_at: Date;
-    next_attempt_at: Date;
-  }>(
-    `SELECT id, to_address, subject, status, attempts, last_error, created_at, next_attempt_at
-       FROM outbox_emails
-      WHERE status IN ('failed', 'pending')
-      ORDER BY (status = 'failed') DESC, created_at DESC
-      LIMIT $1`,
-    { bind: [limit], type: QueryTypes.SELECT },
-  );
+  const rows = await models().OutboxEmail.findAll({
+    attributes: ["id", "toAddress", "subject", "status", "attempts", "lastError", "createdAt", "nextAttemptAt"],
+    where: { status: ["failed", "pending"] },
+    order: [
+      [literal("(status = 'failed')"), "DESC"],
+      ["createdAt", "DESC"],
+    ],
+    limit,
+  });
   return rows.map((r) => ({
-    id: Number(r.id),
-    toAddress: r.to_address,
+    id: r.id,
+    toAddress: r.toAddress,
     subject: r.subject,
-    status: r.status,
+    status: r.status as "pending" | "failed",
     attempts: r.attempts,
-    lastError: r.last_error,
-    createdAt: new Date(r.created_at).toISOString(),
-    nextAttemptAt: new Date(r.next_attempt_at).toISOString(),
+    lastError: r.lastError,
+    createdAt: new Date(r.createdAt).toISOString(),
+    nextAttemptAt: new Date(r.nextAttemptAt).toISOString(),
   }));
 }

@@ -10,6 +10,7 @@ import {
   SetStewardsSchema,
   UpdatePersonSchema,
 } from "../../../shared/schemas/people";
+import { linkUseLimit } from "../auth/request-limits";
 import * as service from "./people.service";
 
 /** People management (coordinators) and invitation acceptance (anyone holding a valid link). */
@@ -59,6 +60,7 @@ export function peopleRouter() {
   // Accepting signs the person in straight away, in a new session.
   router.post(
     "/invitations/:token/accept",
+    linkUseLimit(),
     handleWithSession(
       { params: TokenParamsSchema, body: AcceptInvitationSchema },
       async ({ params, body, requestId, ip, session }) => {

@@ -1,3 +1,4 @@
+import { UniqueConstraintError } from "sequelize";
 import { appUrl } from "../../config/env";
 import { sequelize } from "../../db/sequelize";
 import { AppError, badRequest, conflict, notFound } from "../../lib/app-error";
@@ -13,13 +14,30 @@ import type {
   SetStewards,
   UpdatePerson,
 } from "../../../shared/schemas/people";
-import * as authRepo from "../auth/auth.repository";
-import { assertAcceptablePassword, type RequestContext } from "../auth/auth.service";
+import { assertAcceptablePassword } from "../../lib/password";
+import type { RequestContext } from "../../lib/caller";
+import { findStewards, lockDigester, removeStewardships, replaceStewards } from "../digesters";
 import { enqueueEmail } from "../outbox/outbox.service";
 import { invitationEmail } from "../outbox/templates";
 import * as repo from "./people.repository";
 
 export const INVITATION_TTL_MS = 7 * 24 * 60 * 60_000;
+/** The same invitation sent again within this many seconds is a repeat (a double click, a burst), not a new one. */
+export const REPEAT_INVITATION_SECONDS = 60;
+
+const repeatedInvitation = () =>
+  conflict(
+    "This invitation went to this address a moment ago. It may take a few minutes to arrive; send it again after that if it has not.",
+    { email: "was invited with the same details less than a minute ago" },
+  );
+
+const addressJustTaken = () =>
+  conflict("Another account or invitation took this address a moment ago. Reload the list of people to see it.", {
+    email: "was taken by another account or invitation a moment ago",
+  });
+
+const sameRoles = (a: readonly Role[], b: readonly Role[]) =>
+  a.length === b.length && [...a].sort().join() === [...b].sort().join();
 
 export function listPeople(): Promise<PersonRow[]> {
   return repo.listPeople();
@@ -29,7 +47,9 @@ export function listPeople(): Promise<PersonRow[]> {
  * Invites someone by e-mail: a person row in status "invited" (so roles and steward duties can
  * be set before they accept), a one-time link valid 7 days (only its hash is stored), and the
  * e-mail in the outbox, all in one transaction. Inviting an invited person again replaces the
- * old link.
+ * old link, unless it repeats the same invitation within a minute: invitations of one address
+ * take turns (advisory lock), so of a burst of the same invitation one is sent and the others
+ * are 409.
  */
 export async function invite(
   caller: Caller,
@@ -38,55 +58,66 @@ export async function invite(
 ): Promise<InvitationCreated> {
   const { token, hash } = newOneTimeToken();
   const expiresAt = new Date(now.getTime() + INVITATION_TTL_MS);
-  const personId = await sequelize().transaction(async (t) => {
-    if (input.householdId != null && !(await repo.householdExists(t, input.householdId))) {
-      throw badRequest("Please check the household.", { householdId: "There is no household with this id." });
-    }
-    const existing = await repo.lockPerson(t, { email: input.email });
-    if (existing && existing.status !== "invited") {
-      throw conflict("This person already has an account.", {
-        email: "Someone with this e-mail address already has an account.",
-      });
-    }
-    let id: number;
-    if (existing) {
-      id = existing.id;
-      await repo.updatePerson(t, id, {
-        roles: input.roles,
-        ...(input.name ? { name: input.name } : {}),
-        ...(input.householdId !== undefined ? { householdId: input.householdId } : {}),
-      });
-      await repo.revokeInvitations(t, id);
-    } else {
-      // The name column needs a value; until they choose one, the invitation shows the address.
-      id = await repo.insertInvitedPerson(t, {
+  const personId = await sequelize()
+    .transaction(async (t) => {
+      await repo.lockInvitationAddress(t, input.email);
+      const existing = await repo.lockPerson(t, { email: input.email });
+      if (existing && existing.status !== "invited") {
+        throw conflict("This person already has an account.", {
+          email: "Someone with this e-mail address already has an account.",
+        });
+      }
+      let id: number;
+      if (existing) {
+        id = existing.id;
+        const recent = await repo.recentOpenInvitation(t, id, REPEAT_INVITATION_SECONDS);
+        const sameDetails =
+          recent !== null &&
+          sameRoles(recent.roles, input.roles) &&
+          recent.name === input.name &&
+          (input.householdId === undefined || input.householdId === existing.householdId);
+        if (sameDetails) throw repeatedInvitation();
+        await repo.updatePerson(t, id, {
+          roles: input.roles,
+          ...(input.name ? { name: input.name } : {}),
+          ...(input.householdId !== undefined ? { householdId: input.householdId } : {}),
+        });
+        await repo.revokeInvitations(t, id);
+      } else {
+        // The name column needs a value; until they choose one, the invitation shows the address.
+        id = await repo.insertInvitedPerson(t, {
+          email: input.email,
+          name: input.name || input.email.split("@")[0]!.slice(0, 120),
+          roles: input.roles,
+          householdId: input.householdId ?? null,
+        });
+      }
+      await repo.insertInvitation(t, {
+        tokenHash: hash,
         email: input.email,
-        name: input.name || input.email.split("@")[0]!.slice(0, 120),
-        roles: input.roles,
-        householdId: input.householdId ?? null,
-      });
-    }
-    await repo.insertInvitation(t, {
-      tokenHash: hash,
-      email: input.email,
-      name: input.name,
-      roles: input.roles,
-      invitedBy: caller.id,
-      expiresAt,
-      personId: id,
-    });
-    await enqueueEmail(
-      t,
-      invitationEmail({
-        to: input.email,
         name: input.name,
-        inviterName: caller.name,
-        link: `${appUrl()}/invitation/${token}`,
+        roles: input.roles,
+        invitedBy: caller.id,
         expiresAt,
-      }),
-    );
-    return id;
-  });
+        personId: id,
+      });
+      await enqueueEmail(
+        t,
+        invitationEmail({
+          to: input.email,
+          name: input.name,
+          inviterName: caller.name,
+          link: `${appUrl()}/invitation/${token}`,
+          expiresAt,
+        }),
+      );
+      return id;
+    })
+    .catch((err: unknown) => {
+      // The address became an account's a moment ago (an e-mail change, a household's invitation).
+      if (err instanceof UniqueConstraintError) throw addressJustTaken();
+      throw err;
+    });
   return { personId, email: input.email, expiresAt: expiresAt.toISOString() };
 }
 
@@ -136,7 +167,7 @@ export async function acceptInvitation(
     const personId = invitation.personId!;
     await repo.activateInvitedPerson(t, personId, input.name, passwordHash);
     await repo.markInvitationUsed(t, invitation.id);
-    const record = await authRepo.findById(personId, t);
+    const record = await repo.findById(personId, t);
     return record!.caller;
   });
   logSecurityEvent("invitation_accepted", { ...ctx, userId: caller.id });
@@ -167,14 +198,11 @@ export async function updatePerson(
         status: "They become active when they accept the invitation.",
       });
     }
-    if (changes.householdId != null && !(await repo.householdExists(t, changes.householdId))) {
-      throw badRequest("Please check the household.", { householdId: "There is no household with this id." });
-    }
     // An invited person stays invited; only accepting the invitation activates them.
     const status = changes.status === "active" && person.status === "invited" ? undefined : changes.status;
     await repo.updatePerson(t, id, { ...changes, status });
-    if (changes.roles && !changes.roles.includes("steward")) await repo.removeStewardships(t, id);
-    if (status === "disabled") await authRepo.deleteSessionsOf(id, undefined, t);
+    if (changes.roles && !changes.roles.includes("steward")) await removeStewardships(t, id);
+    if (status === "disabled") await repo.deleteSessionsOf(id, undefined, t);
     return { before: person, row: (await repo.getPersonRow(id, t))! };
   });
   if (changes.status === "disabled" && before.status !== "disabled") {
@@ -194,7 +222,7 @@ export async function updatePerson(
 /** Replaces the stewards of a digester; each must hold the steward role and not be disabled. */
 export async function setStewards(digesterId: number, input: SetStewards): Promise<DigesterStewards> {
   return sequelize().transaction(async (t) => {
-    if (!(await repo.lockDigester(t, digesterId))) throw notFound("This digester");
+    if (!(await lockDigester(t, digesterId))) throw notFound("This digester");
     const people = await repo.findPeopleByIds(t, input.personIds);
     const byId = new Map(people.map((p) => [p.id, p]));
     const problems: string[] = [];
@@ -206,7 +234,7 @@ export async function setStewards(digesterId: number, input: SetStewards): Promi
     }
     if (problems.length > 0)
       throw badRequest("Some of these people cannot be stewards.", { personIds: problems.join("; ") });
-    await repo.replaceStewards(t, digesterId, input.personIds);
-    return { digesterId, stewards: await repo.stewardsOf(t, digesterId) };
+    await replaceStewards(t, digesterId, input.personIds);
+    return { digesterId, stewards: await findStewards(digesterId, { transaction: t, everyone: true }) };
   });
 }

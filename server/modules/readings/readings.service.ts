@@ -10,18 +10,16 @@ import {
 } from "../../../shared/schemas/readings";
 import { sequelize } from "../../db/sequelize";
 import { AppError, badRequest, notFound } from "../../lib/app-error";
-import { addDays, localDate } from "../../lib/clock";
+import { addDays, localDate, startOfLocalDay } from "../../lib/clock";
 import type { Caller } from "../../middleware/handle";
 import { assertStewardOf } from "../../middleware/require-role";
-import { findDigesters } from "../digesters/digester-state.repository";
-import * as repo from "./readings.repository";
-import { startOfLocalDay } from "./local-day";
+import * as digesters from "../digesters";
 import { parseSensorCsv } from "./sensor-csv";
 
 const DEFAULT_RANGE_DAYS = 60;
 
 async function assertDigesterExists(digesterId: number) {
-  const [digester] = await findDigesters([digesterId]);
+  const [digester] = await digesters.findDigesters([digesterId]);
   if (!digester) throw notFound("This digester");
   return digester;
 }
@@ -57,7 +55,7 @@ export async function createReading(
     }
     vfaTaRatio = Math.round(ratio * 1000) / 1000;
   }
-  return repo.insertReading({
+  return digesters.insertReading({
     digesterId,
     takenAt,
     temperatureC: input.temperatureC ?? null,
@@ -99,7 +97,7 @@ export async function listReadings(
   assertStewardOf(caller, digesterId);
   await assertDigesterExists(digesterId);
   const { from, to } = readingRange(query, now);
-  const rows = await repo.listReadings(digesterId, from, to, MAX_READINGS_PER_LIST + 1);
+  const rows = await digesters.listReadings(digesterId, from, to, MAX_READINGS_PER_LIST + 1);
   if (rows.length > MAX_READINGS_PER_LIST) {
     throw new AppError(
       422,
@@ -129,7 +127,9 @@ export async function importSensorLog(
     });
   }
   const parsed = parseSensorCsv(file.buffer, now);
-  const imported = await sequelize().transaction((t) => repo.insertSensorRows(t, digesterId, caller.id, parsed.rows));
+  const imported = await sequelize().transaction((t) =>
+    digesters.insertSensorRows(t, digesterId, caller.id, parsed.rows),
+  );
   return {
     imported,
     skippedDuplicates: parsed.count - imported,

@@ -8,6 +8,9 @@
  * because issue 5 lists it among the failures and a stray BOM otherwise shows up as an unknown
  * first column name; the message says how to save without one. Only commas separate columns and
  * only dots mark decimals, so a file saved with semicolons is named as such, not half-read.
+ * Two rows for one moment are a repeat when their values agree (kept once, counted as skipped)
+ * and a contradiction when they do not: the file is refused naming both lines, because choosing
+ * either row would silently drop a reading the steward may need.
  */
 import { parse } from "csv-parse/sync";
 import { AppError } from "../../lib/app-error";
@@ -18,7 +21,7 @@ import {
   SENSOR_CSV_MAX_ROWS,
   type SensorCsvColumn,
 } from "../../../shared/schemas/readings";
-import type { SensorRows } from "./readings.repository";
+import type { SensorRows } from "../digesters";
 
 export interface ParsedSensorLog {
   rows: SensorRows;
@@ -34,13 +37,19 @@ interface Where {
   columnName?: string;
 }
 
-function csvError(status: number, code: string, where: Where, problem: string): AppError {
+function csvError(
+  status: number,
+  code: string,
+  where: Where,
+  problem: string,
+  extra: Record<string, string> = {},
+): AppError {
   const place = `Line ${where.line}${where.column ? `, column ${where.column}${where.columnName ? ` (${where.columnName})` : ""}` : ""}`;
   const message = `${place}: ${problem}`;
   const fields: Record<string, string> = { file: message, line: String(where.line) };
   if (where.column) fields.column = String(where.column);
   if (where.columnName) fields.columnName = where.columnName;
-  return new AppError(status, code, message, fields);
+  return new AppError(status, code, message, { ...fields, ...extra });
 }
 
 /** 1-based line and column of a character offset in the text. */
@@ -161,6 +170,9 @@ function parseNumber(raw: string, column: Exclude<SensorCsvColumn, "timestamp">,
   }
   return value;
 }
+
+const VALUE_COLUMNS = ["temperature_c", "ph", "gas_level_percent"] as const;
+const shown = (value: number | null) => (value === null ? "empty" : String(value));
 
 const clip = (s: string) => (s.length > 40 ? `${s.slice(0, 40)}…` : s);
 
@@ -290,6 +302,9 @@ export function parseSensorCsv(buffer: Buffer, now: Date = new Date()): ParsedSe
 
   const nowMs = now.getTime();
   const rows: SensorRows = { takenAt: [], temperatureC: [], ph: [], gasLevelPercent: [] };
+  // Each moment read so far (epoch ms): its line and values, to tell a repeat from a contradiction.
+  const moments = new Map<number, { line: number; values: (number | null)[] }>();
+  let read = 0;
   let minMs = Number.POSITIVE_INFINITY;
   let maxMs = Number.NEGATIVE_INFINITY;
   for (let r = 1; r < records.length; r += 1) {
@@ -305,7 +320,7 @@ export function parseSensorCsv(buffer: Buffer, now: Date = new Date()): ParsedSe
         "this line repeats the header. Remove it (files joined together?).",
       );
     }
-    if (rows.takenAt.length >= SENSOR_CSV_MAX_ROWS) {
+    if (read >= SENSOR_CSV_MAX_ROWS) {
       throw csvError(
         413,
         "too_many_rows",
@@ -334,6 +349,28 @@ export function parseSensorCsv(buffer: Buffer, now: Date = new Date()): ParsedSe
     const ph = phCol === undefined ? null : parseNumber(cells[phCol]!, "ph", at(phCol, "ph"));
     const gas =
       gasCol === undefined ? null : parseNumber(cells[gasCol]!, "gas_level_percent", at(gasCol, "gas_level_percent"));
+    read += 1;
+    const values = [temperature, ph, gas];
+    const earlier = moments.get(ms);
+    if (earlier) {
+      const differences = VALUE_COLUMNS.flatMap((name, i) =>
+        earlier.values[i] === values[i]
+          ? []
+          : [`${name} ${shown(earlier.values[i]!)} on line ${earlier.line}, ${shown(values[i]!)} here`],
+      );
+      if (differences.length > 0) {
+        throw csvError(
+          400,
+          "csv_conflict",
+          at(tsCol, "timestamp"),
+          `the timestamp ${cells[tsCol]} is the same moment as line ${earlier.line}, with other values (${differences.join("; ")}). Keep the right one of the two lines.`,
+          { otherLine: String(earlier.line) },
+        );
+      }
+      // The same reading twice (files joined together?): kept once, counted as skipped.
+      continue;
+    }
+    moments.set(ms, { line, values });
     rows.takenAt.push(new Date(ms).toISOString());
     rows.temperatureC.push(temperature);
     rows.ph.push(ph);
@@ -345,7 +382,7 @@ export function parseSensorCsv(buffer: Buffer, now: Date = new Date()): ParsedSe
     throw csvError(400, "csv_empty", { line: headerLine }, "the file has a header but no rows.");
   return {
     rows,
-    count: rows.takenAt.length,
+    count: read,
     from: new Date(minMs).toISOString(),
     to: new Date(maxMs).toISOString(),
   };

@@ -12,19 +12,40 @@
  */
 import type { Transaction } from "sequelize";
 import { haversineM, isValidLatLng } from "../../../shared/domain/geo";
+import { closedPhrase, closedReason } from "../../../shared/domain/room";
 import { freshKgFromKgVs } from "../../../shared/domain/scraps";
 import { projectWeeklyRoom } from "../../../shared/domain/weekly-room";
 import type { RebalanceItem, RebalanceView } from "../../../shared/schemas/assignments";
 import { sequelize } from "../../db/sequelize";
 import { AppError, badRequest } from "../../lib/app-error";
 import { addDays, localDate } from "../../lib/clock";
-import { type DigesterToday, loadDigestersToday } from "../digesters/digester-state.service";
-import { residentsOf } from "../assignments/assignments.repository";
+import * as digesters from "../digesters";
+import { type DigesterToday, loadDigestersToday } from "../digesters";
+import { residentsOf } from "../people";
+import { dropOffsMadeByRounds } from "../rounds";
 import { dropOffMovedEmail } from "../assignments/assignments.emails";
 import { enqueueEmail } from "../outbox/outbox.service";
-import * as repo from "./rebalancing.repository";
 
 const SUGGESTIONS = 3;
+
+/**
+ * Pending drop-offs on `days` that a resident still has to carry: one made by marking a
+ * collection-round stop collected is left out (its buckets are already at the round's end
+ * digester; it still counts in the pending loads). With `lock`, locked after the digesters.
+ */
+async function movableDropOffs(
+  days: string[],
+  options: { transaction?: Transaction; lock?: boolean } = {},
+): Promise<digesters.PendingDropOff[]> {
+  const pending = await digesters.pendingDropOffs(days, options);
+  const collected = new Set(
+    await dropOffsMadeByRounds(
+      pending.map((p) => p.id),
+      options.transaction,
+    ),
+  );
+  return pending.filter((p) => !collected.has(p.id));
+}
 
 interface DayRoom {
   /** Room left for new pending loads, fresh kg (capacity − pending). */
@@ -47,7 +68,7 @@ function capacity(state: DigesterToday, day: string): number {
   return freshKgFromKgVs(projection.dailyKgVs[1] ?? 0);
 }
 
-function rooms(states: DigesterToday[], loads: repo.PendingLoad[], days: string[]): DayRoom {
+function rooms(states: DigesterToday[], loads: digesters.PendingLoad[], days: string[]): DayRoom {
   const pend = new Map<string, number>();
   for (const l of loads)
     pend.set(key(l.digesterId, l.forDate), (pend.get(key(l.digesterId, l.forDate)) ?? 0) + l.freshKg);
@@ -60,7 +81,7 @@ function rooms(states: DigesterToday[], loads: repo.PendingLoad[], days: string[
 
 function problemOf(state: DigesterToday, day: string, room: DayRoom): string | null {
   if (state.closed) {
-    return `${state.digester.name} is ${state.digester.status}${state.digester.statusReason ? ` (${state.digester.statusReason})` : ""}.`;
+    return `${closedPhrase(state.digester.name, closedReason(state.digester)!)}.`;
   }
   const pending = room.pending.get(key(state.digester.id, day)) ?? 0;
   const free = room.free.get(key(state.digester.id, day)) ?? 0;
@@ -75,7 +96,7 @@ function problemOf(state: DigesterToday, day: string, room: DayRoom): string | n
 const EPS = 1e-9;
 
 /** The nearest open digesters with room (`free`, fresh kg by digester and day) for this drop-off. */
-function suggestionsFor(p: repo.PendingDropOff, states: DigesterToday[], free: Map<string, number>) {
+function suggestionsFor(p: digesters.PendingDropOff, states: DigesterToday[], free: Map<string, number>) {
   const from = states.find((s) => s.digester.id === p.digesterId);
   const origin = isValidLatLng(p.lat, p.lng) ? { lat: p.lat!, lng: p.lng! } : from ? from.digester : null;
   return states
@@ -101,8 +122,8 @@ export async function rebalancingView(now = new Date()): Promise<RebalanceView> 
   const days = [today, addDays(today, 1)];
   const [states, pending, loads] = await Promise.all([
     loadDigestersToday(null, { now }),
-    repo.pendingDropOffs(days),
-    repo.pendingLoads(days),
+    movableDropOffs(days),
+    digesters.pendingLoads(days),
   ]);
   const room = rooms(states, loads, days);
   const byId = new Map(states.map((s) => [s.digester.id, s]));
@@ -166,8 +187,8 @@ export async function moveDropOffs(
     const today = localDate(now);
     const days = [today, addDays(today, 1)];
     const states = await loadDigestersToday(null, { now, transaction, lock: true });
-    const allPending = await repo.pendingDropOffs(days, { transaction, lock: true });
-    const room = rooms(states, await repo.pendingLoads(days, transaction), days);
+    const allPending = await movableDropOffs(days, { transaction, lock: true });
+    const room = rooms(states, await digesters.pendingLoads(days, transaction), days);
     const byId = new Map(states.map((s) => [s.digester.id, s]));
     const pendingById = new Map(allPending.map((p) => [p.id, p]));
     const seen = new Set<number>();
@@ -181,12 +202,13 @@ export async function moveDropOffs(
       seen.add(m.dropOffId);
       const p = pendingById.get(m.dropOffId);
       if (!p) {
-        const status = await repo.dropOffStatus(m.dropOffId, transaction);
+        const status = await digesters.dropOffStatus(m.dropOffId, transaction);
         if (!status)
           throw new AppError(404, "not_found", `Drop-off ${m.dropOffId} was not found. Nothing was moved.`, {
             [dropOffField]: "No such drop-off.",
           });
-        if (status.onRound && status.status === "pending" && days.includes(status.forDate)) {
+        const onRound = (await dropOffsMadeByRounds([m.dropOffId], transaction)).length > 0;
+        if (onRound && status.status === "pending" && days.includes(status.forDate)) {
           throw new AppError(
             409,
             "not_movable",
@@ -228,7 +250,7 @@ export async function moveDropOffs(
       const why = problemOf(byId.get(p.digesterId)!, p.forDate, room) ?? `${fromName} has too little room that day.`;
       room.free.set(key(m.digesterId, p.forDate), free - p.freshKg);
       room.free.set(key(p.digesterId, p.forDate), (room.free.get(key(p.digesterId, p.forDate)) ?? 0) + p.freshKg);
-      await repo.moveDropOff(transaction, p.id, m.digesterId);
+      await digesters.moveDropOff(transaction, p.id, m.digesterId);
       moved++;
       for (const r of await residentsOf([p.householdId], transaction)) {
         await enqueueEmail(

@@ -2,7 +2,8 @@
  * SQL of the day-before collection reminders: the rounds of a date not reminded yet (locked,
  * skipping rows another process holds), their stops' residents, and the mark.
  */
-import { QueryTypes, type Transaction } from "sequelize";
+import { QueryTypes, type Transaction, fn } from "sequelize";
+import { models } from "../../db/models";
 import { sequelize } from "../../db/sequelize";
 
 export interface RoundToRemind {
@@ -18,6 +19,7 @@ export interface RoundToRemind {
 
 /** Planned rounds on `forDate` with no reminder yet; rows locked, those locked elsewhere skipped. */
 export function roundsToRemind(transaction: Transaction, forDate: string): Promise<RoundToRemind[]> {
+  // SQL: FOR UPDATE SKIP LOCKED, so two processes never remind one round; counts per round.
   return sequelize().query<RoundToRemind>(
     `SELECT r.id, to_char(r.for_date, 'YYYY-MM-DD') AS "forDate", p.email::text AS "volunteerEmail",
             p.name AS "volunteerName", p.status AS "volunteerStatus", d.name AS "endDigesterName",
@@ -44,6 +46,7 @@ export interface StopResident {
 /** Active residents of the planned stops of these rounds, in round and stop order. */
 export function stopResidents(transaction: Transaction, roundIds: number[]): Promise<StopResident[]> {
   if (roundIds.length === 0) return Promise.resolve([]);
+  // SQL: one read of the planned stops' active residents across four tables for the e-mails.
   return sequelize().query<StopResident>(
     `SELECT s.round_id AS "roundId", s.seq, c.bucket_count AS "bucketCount", h.name AS "householdName",
             p.email::text AS email, p.name
@@ -59,8 +62,8 @@ export function stopResidents(transaction: Transaction, roundIds: number[]): Pro
 
 export async function markReminded(transaction: Transaction, roundIds: number[]): Promise<void> {
   if (roundIds.length === 0) return;
-  await sequelize().query(`UPDATE collection_rounds SET reminded_at = now() WHERE id = ANY($1::int[])`, {
-    bind: [roundIds],
-    transaction,
-  });
+  await models().CollectionRound.update(
+    { remindedAt: fn("now") as unknown as Date },
+    { where: { id: roundIds }, transaction, silent: true },
+  );
 }

@@ -1,10 +1,12 @@
 /**
- * Collection rounds' SQL: one statement per function, plain objects out. The service owns the
- * transactions and the order of the locks (planning: the date's advisory lock, then the date's
+ * `collection_rounds` and `collection_round_stops`, owned by the rounds module: plain reads and
+ * writes through the models, plain objects out; named SQL for the locks, the counts and the
+ * batch insert, each saying why. The service owns the transactions and the order of the locks (planning: the date's advisory lock, then the date's
  * planned rounds, then the requests; marking collected: the round row, then its stop's request).
  */
 import { QueryTypes, type Transaction } from "sequelize";
 import type { CollectionRequestStatus, RoundSummary } from "../../../shared/schemas/collections";
+import { models } from "../../db/models";
 import { sequelize } from "../../db/sequelize";
 
 const q = <T extends object>(sql: string, bind: unknown[], transaction?: Transaction) =>
@@ -25,6 +27,7 @@ export const ROUND_LIST_LIMIT = 200;
 
 /** Serialises planning of one date (YYYY-MM-DD) across processes until the transaction ends. */
 export async function lockDate(transaction: Transaction, forDate: string): Promise<void> {
+  // SQL: a transaction-scoped advisory lock.
   await sequelize().query(`SELECT pg_advisory_xact_lock(hashtext('hearthloop.rounds:' || $1))`, {
     bind: [forDate],
     transaction,
@@ -37,6 +40,7 @@ export async function lockDate(transaction: Transaction, forDate: string): Promi
  * flight holds its round's row, so this waits for it to commit.
  */
 export async function lockPlannedRounds(transaction: Transaction, forDate: string): Promise<number[]> {
+  // SQL: row locks, in id order.
   const rows = await q<{ id: number }>(
     `SELECT id FROM collection_rounds WHERE for_date = $1 AND status = 'planned' ORDER BY id FOR UPDATE`,
     [forDate],
@@ -52,6 +56,7 @@ export async function lockPlannedRounds(transaction: Transaction, forDate: strin
  */
 export async function replaceableRoundIds(transaction: Transaction, lockedIds: number[]): Promise<number[]> {
   if (lockedIds.length === 0) return [];
+  // SQL: an anti-join (NOT EXISTS over stops and requests) read after the locks were granted.
   const rows = await q<{ id: number }>(
     `SELECT r.id FROM collection_rounds r WHERE r.id = ANY($1::int[]) AND r.status = 'planned'
        AND NOT EXISTS (SELECT 1 FROM collection_round_stops s JOIN collection_requests c ON c.id = s.request_id
@@ -63,33 +68,18 @@ export async function replaceableRoundIds(transaction: Transaction, lockedIds: n
   return rows.map((r) => r.id);
 }
 
-export interface ReservedOnDate {
-  digesterId: number;
-  /** Fresh kg of drop-offs waiting for a steward at the digester on the date. */
-  pendingKg: number;
-  /** Fresh kg still to collect on the date's planned rounds ending there (planning's kg per bucket). */
-  plannedKg: number;
-}
-
-/**
- * What is already headed for each digester on a date: pending drop-offs, and the uncollected
- * stops of the date's planned rounds (after a re-plan deleted the rounds it replaces, those are
- * the rounds it keeps). Digesters with neither are left out.
- */
-export function reservedOnDate(
+/** Fresh kg still to collect on a date's planned rounds, per end digester (planning's kg per bucket). */
+export function plannedKgOnDate(
   transaction: Transaction,
   forDate: string,
   kgPerBucket: number,
-): Promise<ReservedOnDate[]> {
-  return q<ReservedOnDate>(
-    `SELECT digester_id AS "digesterId", sum(pending_kg)::float8 AS "pendingKg", sum(planned_kg)::float8 AS "plannedKg" FROM (
-        SELECT digester_id, fresh_kg AS pending_kg, 0 AS planned_kg FROM drop_offs WHERE for_date = $1 AND status = 'pending'
-        UNION ALL
-        SELECT r.end_digester_id, 0, c.bucket_count * $2::numeric
-          FROM collection_rounds r JOIN collection_round_stops s ON s.round_id = r.id JOIN collection_requests c ON c.id = s.request_id
-         WHERE r.for_date = $1 AND r.status = 'planned' AND c.status = 'planned'
-      ) reserved
-      GROUP BY digester_id`,
+): Promise<{ digesterId: number; plannedKg: number }[]> {
+  // SQL: an aggregate (sum per end digester) over rounds, stops and requests.
+  return q(
+    `SELECT r.end_digester_id AS "digesterId", sum(c.bucket_count * $2::numeric)::float8 AS "plannedKg"
+       FROM collection_rounds r JOIN collection_round_stops s ON s.round_id = r.id JOIN collection_requests c ON c.id = s.request_id
+      WHERE r.for_date = $1 AND r.status = 'planned' AND c.status = 'planned'
+      GROUP BY r.end_digester_id`,
     [forDate, kgPerBucket],
     transaction,
   );
@@ -97,16 +87,21 @@ export function reservedOnDate(
 
 /** Puts the planned requests on these rounds back to open. */
 export async function reopenRequestsOf(transaction: Transaction, roundIds: number[]): Promise<void> {
-  await sequelize().query(
-    `UPDATE collection_requests SET status = 'open', updated_at = now()
-      WHERE status = 'planned' AND id IN (SELECT request_id FROM collection_round_stops WHERE round_id = ANY($1::int[]))`,
-    { bind: [roundIds], transaction },
+  const stops = await models().CollectionRoundStop.findAll({
+    attributes: ["requestId"],
+    where: { roundId: roundIds },
+    transaction,
+  });
+  if (stops.length === 0) return;
+  await models().CollectionRequest.update(
+    { status: "open" },
+    { where: { id: stops.map((s) => s.requestId), status: "planned" }, transaction },
   );
 }
 
 /** Deletes rounds (their stops go with them). */
 export async function deleteRounds(transaction: Transaction, roundIds: number[]): Promise<void> {
-  await sequelize().query(`DELETE FROM collection_rounds WHERE id = ANY($1::int[])`, { bind: [roundIds], transaction });
+  await models().CollectionRound.destroy({ where: { id: roundIds }, transaction });
 }
 
 export interface OpenRequest {
@@ -119,31 +114,12 @@ export interface OpenRequest {
 
 /** The date's open requests with their household's place, by id; locks the request rows. */
 export function lockOpenRequests(transaction: Transaction, forDate: string): Promise<OpenRequest[]> {
+  // SQL: row locks on the requests only (FOR UPDATE OF r), reading their household's name and place.
   return q<OpenRequest>(
     `SELECT r.id, h.name AS "householdName", h.lat, h.lng, r.bucket_count AS "bucketCount"
        FROM collection_requests r JOIN households h ON h.id = r.household_id
       WHERE r.for_date = $1 AND r.status = 'open' ORDER BY r.id FOR UPDATE OF r`,
     [forDate],
-    transaction,
-  );
-}
-
-export interface Volunteer {
-  id: number;
-  name: string;
-  lat: number;
-  lng: number;
-  /** Most the volunteer's cargo bike carries, kg. */
-  bikeLoadKg: number;
-}
-
-/** Active volunteers with a bike load and a start point, by id. */
-export function availableVolunteers(transaction?: Transaction): Promise<Volunteer[]> {
-  return q<Volunteer>(
-    `SELECT id, name, start_lat AS lat, start_lng AS lng, bike_load_kg::float8 AS "bikeLoadKg" FROM people
-      WHERE is_volunteer AND status = 'active' AND bike_load_kg IS NOT NULL AND start_lat IS NOT NULL AND start_lng IS NOT NULL
-      ORDER BY id`,
-    [],
     transaction,
   );
 }
@@ -158,6 +134,7 @@ export interface NewRound {
 /** Inserts a date's planned rounds in one statement; returns their ids in the same order. */
 export async function insertRounds(transaction: Transaction, forDate: string, rounds: NewRound[]): Promise<number[]> {
   if (rounds.length === 0) return [];
+  // SQL: a CTE that draws each row's id first and inserts all rounds in one statement.
   // Ids are drawn per input row first, so each id is tied to its row whatever order the insert runs in.
   const rows = await q<{ id: number }>(
     `WITH input AS (
@@ -188,25 +165,17 @@ export async function insertStops(
   stops: { roundId: number; requestId: number; seq: number }[],
 ): Promise<void> {
   if (stops.length === 0) return;
-  await sequelize().query(
-    `INSERT INTO collection_round_stops (round_id, request_id, seq) SELECT * FROM unnest($1::int[], $2::int[], $3::int[])`,
-    { bind: [stops.map((s) => s.roundId), stops.map((s) => s.requestId), stops.map((s) => s.seq)], transaction },
-  );
+  await models().CollectionRoundStop.bulkCreate(stops, { transaction });
 }
 
 export async function markRequestsPlanned(transaction: Transaction, requestIds: number[]): Promise<void> {
   if (requestIds.length === 0) return;
-  await sequelize().query(
-    `UPDATE collection_requests SET status = 'planned', updated_at = now() WHERE id = ANY($1::int[])`,
-    {
-      bind: [requestIds],
-      transaction,
-    },
-  );
+  await models().CollectionRequest.update({ status: "planned" }, { where: { id: requestIds }, transaction });
 }
 
 /** Every round of a date, by id. */
 export function roundSummariesOn(forDate: string, transaction?: Transaction): Promise<RoundSummary[]> {
+  // SQL: each round with counts of its stops (aggregate subqueries), in one statement.
   return q<RoundSummary>(
     `SELECT ${summaryColumns} ${summaryFrom} WHERE r.for_date = $1 ORDER BY r.id`,
     [forDate],
@@ -234,6 +203,7 @@ export function listRoundSummaries(filter: {
     bind.push(filter.volunteerId);
     where.push(`r.volunteer_id = $${bind.length}`);
   }
+  // SQL: each round with counts of its stops (aggregate subqueries), in one statement.
   return q<RoundSummary>(
     `SELECT ${summaryColumns} ${summaryFrom} ${where.length ? `WHERE ${where.join(" AND ")}` : ""} ORDER BY r.for_date, r.id LIMIT ${ROUND_LIST_LIMIT}`,
     bind,
@@ -251,29 +221,13 @@ export async function findRound(
   id: number,
   options: { transaction?: Transaction | undefined; lock?: boolean } = {},
 ): Promise<RoundRow | undefined> {
+  // SQL: the round's counts (aggregate subqueries) and, with `lock`, a row lock on the round only.
   const [round] = await q<RoundRow>(
     `SELECT ${summaryColumns}, p.start_lat AS "startLat", p.start_lng AS "startLng" ${summaryFrom} WHERE r.id = $1 ${options.lock ? "FOR UPDATE OF r" : ""}`,
     [id],
     options.transaction,
   );
   return round;
-}
-
-export interface EndDigester {
-  id: number;
-  name: string;
-  siteDescription: string;
-  lat: number;
-  lng: number;
-}
-
-export async function findEndDigester(id: number, transaction?: Transaction): Promise<EndDigester | undefined> {
-  const [end] = await q<EndDigester>(
-    `SELECT id, name, site_description AS "siteDescription", lat, lng FROM digesters WHERE id = $1`,
-    [id],
-    transaction,
-  );
-  return end;
 }
 
 export interface StopRow {
@@ -289,16 +243,38 @@ export interface StopRow {
   dropOffId: number | null;
 }
 
-/** A round's stops in order, with their household and request. */
-export function roundStops(roundId: number, transaction?: Transaction): Promise<StopRow[]> {
-  return q<StopRow>(
-    `SELECT s.seq, s.request_id AS "requestId", h.id AS "householdId", h.name AS "householdName", h.address_text AS "addressText",
-            h.lat, h.lng, c.bucket_count AS "bucketCount", c.status, s.drop_off_id AS "dropOffId"
-       FROM collection_round_stops s JOIN collection_requests c ON c.id = s.request_id JOIN households h ON h.id = c.household_id
-      WHERE s.round_id = $1 ORDER BY s.seq`,
-    [roundId],
+/** A round's stops in order, with their request and its household. */
+export async function roundStops(roundId: number, transaction?: Transaction): Promise<StopRow[]> {
+  const rows = await models().CollectionRoundStop.findAll({
+    where: { roundId },
+    include: [
+      {
+        association: "request",
+        attributes: ["bucketCount", "status", "householdId"],
+        required: true,
+        include: [
+          { association: "household", attributes: ["id", "name", "addressText", "lat", "lng"], required: true },
+        ],
+      },
+    ],
+    order: [["seq", "ASC"]],
     transaction,
-  );
+  });
+  return rows.map((s) => {
+    const h = s.request!.household!;
+    return {
+      seq: s.seq,
+      requestId: s.requestId,
+      householdId: h.id,
+      householdName: h.name,
+      addressText: h.addressText,
+      lat: h.lat!,
+      lng: h.lng!,
+      bucketCount: s.request!.bucketCount,
+      status: s.request!.status,
+      dropOffId: s.dropOffId,
+    };
+  });
 }
 
 export interface LockedStop {
@@ -315,6 +291,7 @@ export async function lockStop(
   roundId: number,
   requestId: number,
 ): Promise<LockedStop | undefined> {
+  // SQL: a row lock on the request only (FOR UPDATE OF c), with its round's end digester status.
   const [stop] = await q<LockedStop>(
     `SELECT c.status, c.household_id AS "householdId", c.bucket_count AS "bucketCount", d.status AS "endDigesterStatus"
        FROM collection_round_stops s JOIN collection_requests c ON c.id = s.request_id
@@ -333,24 +310,16 @@ export async function setStopDropOff(
   requestId: number,
   dropOffId: number,
 ): Promise<void> {
-  await sequelize().query(
-    `UPDATE collection_round_stops SET drop_off_id = $3 WHERE round_id = $1 AND request_id = $2`,
-    {
-      bind: [roundId, requestId, dropOffId],
-      transaction,
-    },
-  );
+  await models().CollectionRoundStop.update({ dropOffId }, { where: { roundId, requestId }, transaction });
 }
 
 export async function markRequestCollected(transaction: Transaction, requestId: number): Promise<void> {
-  await sequelize().query(`UPDATE collection_requests SET status = 'collected', updated_at = now() WHERE id = $1`, {
-    bind: [requestId],
-    transaction,
-  });
+  await models().CollectionRequest.update({ status: "collected" }, { where: { id: requestId }, transaction });
 }
 
 /** Marks the round done when none of its stops is still planned. */
 export async function finishRoundIfDone(transaction: Transaction, roundId: number): Promise<void> {
+  // SQL: a conditional UPDATE (NOT EXISTS a planned stop), decided and written in one statement.
   await sequelize().query(
     `UPDATE collection_rounds r SET status = 'done', updated_at = now() WHERE r.id = $1 AND NOT EXISTS (
        SELECT 1 FROM collection_round_stops s JOIN collection_requests c ON c.id = s.request_id
@@ -365,8 +334,16 @@ export async function updateRoundTotals(
   roundId: number,
   totals: { totalM: number; loadKg: number; status: "planned" | "done" | "cancelled" },
 ): Promise<void> {
-  await sequelize().query(
-    `UPDATE collection_rounds SET total_m = $2, load_kg = $3, status = $4, updated_at = now() WHERE id = $1`,
-    { bind: [roundId, totals.totalM, totals.loadKg, totals.status], transaction },
-  );
+  await models().CollectionRound.update(totals, { where: { id: roundId }, transaction });
+}
+
+/** Of these drop-off ids, those a round's collected stop made (their buckets are at the round's digester already). */
+export async function dropOffsMadeByRounds(dropOffIds: number[], transaction?: Transaction): Promise<number[]> {
+  if (dropOffIds.length === 0) return [];
+  const rows = await models().CollectionRoundStop.findAll({
+    attributes: ["dropOffId"],
+    where: { dropOffId: dropOffIds },
+    transaction,
+  });
+  return rows.map((r) => r.dropOffId!);
 }

@@ -26,12 +26,12 @@ import { sequelize } from "../../db/sequelize";
 import { AppError, badRequest, conflict, forbidden, notFound } from "../../lib/app-error";
 import { daysBetween, localDate } from "../../lib/clock";
 import type { Caller } from "../../middleware/handle";
-import { type DigesterToday, loadDigestersToday } from "../digesters/digester-state.service";
-import { insertDropOff } from "../drop-offs/drop-offs.repository";
+import { type DigesterToday, digesterPoints, insertDropOff, loadDigestersToday, pendingKgOnDate } from "../digesters";
+import { availableVolunteers } from "../people";
 import * as repo from "./rounds.repository";
 import { planMessageWords, unplacedStopWords } from "./rounds.words";
 
-/** What is already headed for a digester on the date planned, fresh kg (see repo.reservedOnDate). */
+/** What is already headed for a digester on the date planned, fresh kg (see {@link reservedOnDate}). */
 export interface ReservedKg {
   /** Drop-offs pending at the digester on that date. */
   pendingKg: number;
@@ -57,6 +57,29 @@ export function roomOnDateKg(state: DigesterToday, forDate: string, reserved: Re
   return Math.max(0, roomKg - reserved.pendingKg - reserved.plannedKg);
 }
 
+/**
+ * What is already headed for each digester on a date: pending drop-offs, and the uncollected
+ * stops of the date's planned rounds (after a re-plan deleted the rounds it replaces, those are
+ * the rounds it keeps). Digesters with neither are left out.
+ */
+async function reservedOnDate(transaction: Transaction, forDate: string): Promise<Map<number, ReservedKg>> {
+  const [pending, planned] = await Promise.all([
+    pendingKgOnDate(transaction, forDate),
+    repo.plannedKgOnDate(transaction, forDate, COLLECTION_BUCKET_KG),
+  ]);
+  const out = new Map<number, ReservedKg>();
+  for (const p of pending) out.set(p.digesterId, { pendingKg: p.pendingKg, plannedKg: 0 });
+  for (const p of planned)
+    out.set(p.digesterId, { pendingKg: out.get(p.digesterId)?.pendingKg ?? 0, plannedKg: p.plannedKg });
+  return out;
+}
+
+/** A round's end digester: name, site and place. */
+async function findEndDigester(id: number, transaction?: Transaction) {
+  const [end] = await digesterPoints({ id, transaction });
+  return end;
+}
+
 /** Planning's density of a collected bucket, kg/L: the drop-off records what the plan reserved (the steward weighs on accepting). */
 const COLLECTION_KG_PER_LITRE = COLLECTION_BUCKET_KG / DEFAULT_BUCKET_LITRES;
 
@@ -73,11 +96,9 @@ export async function planRounds(forDate: string, now = new Date()): Promise<Pla
       await repo.deleteRounds(transaction, oldIds);
     }
     const requests = await repo.lockOpenRequests(transaction, forDate);
-    const volunteers = await repo.availableVolunteers(transaction);
+    const volunteers = await availableVolunteers(transaction);
     const states = await loadDigestersToday(null, { now, transaction });
-    const reserved = new Map(
-      (await repo.reservedOnDate(transaction, forDate, COLLECTION_BUCKET_KG)).map((r) => [r.digesterId, r]),
-    );
+    const reserved = await reservedOnDate(transaction, forDate);
     const digesters = states
       .map((s) => ({
         id: String(s.digester.id),
@@ -186,7 +207,7 @@ export async function refreshRound(transaction: Transaction, roundId: number): P
   const round = await repo.findRound(roundId, { transaction, lock: true });
   if (!round || round.status === "cancelled") return;
   const stops = await repo.roundStops(roundId, transaction);
-  const end = await repo.findEndDigester(round.endDigesterId, transaction);
+  const end = await findEndDigester(round.endDigesterId, transaction);
   let previous = isValidLatLng(round.startLat, round.startLng) ? { lat: round.startLat!, lng: round.startLng! } : null;
   let totalM = 0;
   for (const s of stops) {
@@ -206,7 +227,7 @@ export async function refreshRound(transaction: Transaction, roundId: number): P
 /** The round sheet: stops in order with address, buckets and legs, start and end. */
 export async function roundSheet(caller: Caller, id: number, transaction?: Transaction): Promise<RoundSheet> {
   const round = await loadRound(caller, id, transaction);
-  const end = await repo.findEndDigester(round.endDigesterId, transaction);
+  const end = await findEndDigester(round.endDigesterId, transaction);
   const stops = await repo.roundStops(id, transaction);
   const start = isValidLatLng(round.startLat, round.startLng) ? { lat: round.startLat!, lng: round.startLng! } : null;
   let previous = start;

@@ -1,12 +1,14 @@
 /** Turns a digester's state today and its rows into what the steward's screens show. Pure. */
-import { CITRUS_MAX_SHARE, DEFAULT_BUCKET_LITRES, freshKgFromKgVs } from "../../../shared/domain";
+import { CITRUS_MAX_SHARE, DEFAULT_BUCKET_LITRES, fitsRoom, freshKgFromKgVs } from "../../../shared/domain";
 import type { LatestReadings, LatestValue, StewardBudget, StewardDropOff } from "../../../shared/schemas/steward";
 import { READING_MAX_AGE_HOURS } from "../../../shared/schemas/steward";
-import type { DigesterToday } from "../digesters/digester-state.service";
-import { suggestedWaterLitres } from "../feedings/feed-capacity";
-import { toSummary } from "../digesters/digesters.service";
-import type { LatestReadingRow } from "../readings/readings.repository";
-import type { DropOffRow } from "./steward.repository";
+import {
+  suggestedWaterLitres,
+  toSummary,
+  type DigesterToday,
+  type DropOffRow,
+  type LatestReadingRow,
+} from "../digesters";
 
 const round = (v: number, places: number) => Math.round(v * 10 ** places) / 10 ** places;
 const roundOrNull = (v: number | null, places: number) => (v === null ? null : round(v, places));
@@ -67,7 +69,7 @@ export function stewardDropOff(row: DropOffRow, state: DigesterToday | undefined
   return {
     ...row,
     createdAt: new Date(row.createdAt).toISOString(),
-    fitsToday: alreadyCounted || (state !== undefined && !state.closed && row.kgVs <= room + 1e-6),
+    fitsToday: alreadyCounted || (state !== undefined && !state.closed && fitsRoom(row.kgVs, room)),
     citrusOverLimit: row.citrusPercent > CITRUS_MAX_SHARE * 100,
     suggestedWaterLitres: state
       ? suggestedWaterLitres(row.freshKg, row.mix, row.citrusPercent, state.digester.targetTsPercent)

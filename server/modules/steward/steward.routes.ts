@@ -1,6 +1,7 @@
 import { Router } from "express";
 import { handle } from "../../middleware/handle";
-import { requireRole } from "../../middleware/require-role";
+import { requireRole, requireStewardOf } from "../../middleware/require-role";
+import { DigesterIdParamsSchema } from "../../../shared/schemas/people";
 import { DropOffIdParamsSchema } from "../../../shared/schemas/drop-offs";
 import { AcceptDropOffSchema, FeedDropOffSchema, TurnAwayDropOffSchema } from "../../../shared/schemas/steward";
 import * as service from "./steward.service";
@@ -14,6 +15,16 @@ export function stewardRouter() {
     "/steward/today",
     stewards,
     handle({}, async ({ caller }) => ({ body: await service.today(caller!) })),
+  );
+
+  // The digester page's profile with the steward's view of its day (GET; changes are digester-profile.routes.ts).
+  router.get(
+    "/digesters/:id",
+    stewards,
+    requireStewardOf("id"),
+    handle({ params: DigesterIdParamsSchema }, async ({ params, caller }) => ({
+      body: await service.digesterDetail(caller!, params.id),
+    })),
   );
 
   router.post(

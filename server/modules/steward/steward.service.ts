@@ -19,11 +19,19 @@ import { conflict, notFound } from "../../lib/app-error";
 import { localDate } from "../../lib/clock";
 import type { Caller } from "../../middleware/handle";
 import { assertStewardOf } from "../../middleware/require-role";
-import { loadDigestersToday, type DigesterToday } from "../digesters/digester-state.service";
-import { closedDigester, reserveToday, suggestedWaterLitres, withLedgerGuard } from "../feedings/feed-capacity";
-import * as feedingsRepo from "../feedings/feedings.repository";
-import { findLatestReadings } from "../readings/readings.repository";
-import * as repo from "./steward.repository";
+import * as repo from "../digesters";
+import {
+  closedDigester,
+  findLatestReadings,
+  findStewards,
+  loadDigestersToday,
+  reserveToday,
+  suggestedWaterLitres,
+  toProfile,
+  withLedgerGuard,
+  type DigesterToday,
+} from "../digesters";
+import type { DigesterDetail } from "../../../shared/schemas/steward";
 import { latestReadings, stewardBudget, stewardDropOff } from "./steward-view";
 
 type AcceptInput = z.output<typeof AcceptDropOffSchema>;
@@ -43,7 +51,7 @@ export async function stewardDays(states: DigesterToday[], now: Date): Promise<S
   const [latest, open, fed] = await Promise.all([
     findLatestReadings(ids),
     repo.listOpenDropOffs(ids, today),
-    feedingsRepo.listFeedings(ids, today, today),
+    repo.listFeedings(ids, today, today),
   ]);
   return states.map((state) => {
     const d = state.digester;
@@ -64,6 +72,15 @@ export async function stewardDays(states: DigesterToday[], now: Date): Promise<S
       fedToday: fed.filter((f) => f.digesterId === d.id),
     };
   });
+}
+
+/** `GET /api/digesters/:id`: the digester's profile and the steward's view of its day. */
+export async function digesterDetail(caller: Caller, digesterId: number, now = new Date()): Promise<DigesterDetail> {
+  assertStewardOf(caller, digesterId);
+  const [state] = await loadDigestersToday([digesterId], { now });
+  if (!state) throw notFound("This digester");
+  const [stewards, [day]] = await Promise.all([findStewards(digesterId), stewardDays([state], now)]);
+  return { profile: toProfile(state.digester, stewards), day: day! };
 }
 
 /** `GET /api/steward/today`. */
@@ -123,7 +140,7 @@ async function feedFromDropOff(
 ): Promise<Feeding> {
   // Status first, then the feeding: the ledger sees the accepted load leave before the fed load arrives.
   await repo.updateDropOffDecision(t, dropOff.id, { status: "fed", personId: caller.id, overrideReason });
-  return feedingsRepo.insertFeeding(t, {
+  return repo.insertFeeding(t, {
     digesterId: state.digester.id,
     fedOn: state.today,
     fedAt: now,

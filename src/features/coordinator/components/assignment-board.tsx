@@ -9,6 +9,7 @@ import {
   useTable,
 } from "@tanstack/react-table";
 import { type Proposal, type ProposalAssignment, ProposalRequestSchema } from "@shared/schemas/assignments";
+import { methodWords, proposalNoteWords, suggestionWords, unplacedWords } from "@shared/words/assignment-board";
 import {
   Alert,
   Badge,
@@ -318,15 +319,6 @@ export function AssignmentBoard() {
   );
 }
 
-/** How the plan was found, in the coordinator's words. */
-const METHOD_WORDS: Record<string, string> = {
-  exactMip: "Exact solver (HiGHS)",
-  lpRoundRepair: "Large network: solved approximately, with a bound on how far off it can be",
-  localSearchFallback: "The solver could not finish; nearest digester with room, improved",
-  nearestWithRoom: "Nearest digester with room",
-  nothingToSolve: "Nothing to place",
-};
-
 function ProposalView({
   proposal,
   excluded,
@@ -357,14 +349,14 @@ function ProposalView({
         <Stat
           label="Solver"
           value={proposal.provenOptimal ? "Proven best" : gap}
-          hint={`${METHOD_WORDS[proposal.method] ?? proposal.method}; ${(proposal.solveMs / 1000).toFixed(1)} s`}
+          hint={`${methodWords(proposal.method)}; ${(proposal.solveMs / 1000).toFixed(1)} s`}
         />
       </div>
-      {proposal.messages.length > 0 ? (
+      {proposal.notes.length > 0 ? (
         <Alert variant="warning" title="Worth knowing about this proposal">
           <ul className="list-disc pl-5">
-            {proposal.messages.map((m, i) => (
-              <li key={i}>{m}</li>
+            {proposal.notes.map((note, i) => (
+              <li key={i}>{proposalNoteWords(note)}</li>
             ))}
           </ul>
         </Alert>
@@ -379,8 +371,8 @@ function ProposalView({
             {proposal.unplaced.map((u) => (
               <li key={u.householdId} className="rounded-md border border-border bg-surface p-3">
                 <p className="font-bold">{u.householdName}</p>
-                <p>{u.message}</p>
-                <p className="text-muted">{u.suggestion}</p>
+                <p>{unplacedWords(u)}</p>
+                <p className="text-muted">{suggestionWords(u)}</p>
               </li>
             ))}
           </ul>

@@ -336,7 +336,7 @@ function WelcomePreview({
       <p>
         {preview.kind === "closed"
           ? (chosen.statusReason ?? "A steward has paused it.")
-          : preview.roomKg < 0.05
+          : preview.noRoomLeft
             ? chosen.today.explanation
             : `It has room for only about ${kg(preview.roomKg)} today.`}
       </p>

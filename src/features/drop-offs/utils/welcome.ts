@@ -1,28 +1,51 @@
 /**
- * The welcome shown while the form is filled in, from GET /api/digesters: room = today's
- * budget minus what neighbours have already logged, in kg of the default mix, against this
- * drop-off's kg VS expressed the same way. The server decides again on submit in exact kg VS
- * (it knows the mix of what is waiting), so the two can differ by a few hundred grams.
+ * The welcome shown while the form is filled in, from GET /api/digesters: the same room rule the
+ * server applies on submit (shared/domain/room.ts: today's budget minus what neighbours have
+ * already logged, kg VS, one tolerance), on the list's figures. The server decides again on
+ * submit with unrounded figures, so the two can differ only when a drop-off just about fits.
  */
-import { DEFAULT_KG_VS_PER_FRESH_KG } from "@shared/domain";
-import { haversineM } from "@shared/domain/geo";
+import { DEFAULT_KG_VS_PER_FRESH_KG, decideWelcome, roomTodayKgVs, type RoomCandidate } from "@shared/domain";
 import type { DigesterSummary } from "@shared/schemas/digester";
 
 export type LatLng = { lat: number; lng: number };
 
-/** Room left today, kg of scraps of the default mix; 0 for a digester that takes nothing. */
+/** Room left today, kg VS (shared/domain/room.ts); 0 for a digester that takes nothing. */
+function roomKgVs(d: DigesterSummary): number {
+  return roomTodayKgVs({
+    closed: d.status !== "active",
+    budgetKgVs: d.today.budgetKgVs,
+    pendingKgVs: d.today.pendingKgVs,
+  });
+}
+
+/** Room left today, kg of scraps of the default mix (for display); 0 for a digester that takes nothing. */
 export function roomKgScraps(d: DigesterSummary): number {
-  if (d.status !== "active") return 0;
-  return Math.max(0, d.today.budgetKgScraps - d.today.pendingKgScraps);
+  return roomKgVs(d) / DEFAULT_KG_VS_PER_FRESH_KG;
 }
 
 export type Preview =
   | { kind: "welcome"; roomKg: number }
   | { kind: "closed" }
-  | { kind: "full"; roomKg: number; alternative: { digester: DigesterSummary; distanceM: number | null } | null };
+  | {
+      kind: "full";
+      roomKg: number;
+      /** True when the digester has no room left at all (rather than too little for this drop-off). */
+      noRoomLeft: boolean;
+      alternative: { digester: DigesterSummary; distanceM: number | null } | null;
+    };
 
-/** A little slack so rounding in the list (0.1 kg) never flips a bucket that just fits. */
-const SLACK_KG = 0.05;
+interface Candidate extends RoomCandidate {
+  summary: DigesterSummary;
+}
+
+const candidate = (d: DigesterSummary): Candidate => ({
+  id: d.id,
+  lat: d.location.lat,
+  lng: d.location.lng,
+  closed: d.status !== "active",
+  roomKgVs: roomKgVs(d),
+  summary: d,
+});
 
 export function previewWelcome(
   chosen: DigesterSummary,
@@ -30,20 +53,22 @@ export function previewWelcome(
   dropOffKgVs: number,
   home: LatLng | null,
 ): Preview {
-  if (chosen.status !== "active") return { kind: "closed" };
-  const needKg = dropOffKgVs / DEFAULT_KG_VS_PER_FRESH_KG;
-  const roomKg = roomKgScraps(chosen);
-  if (needKg <= roomKg + SLACK_KG) return { kind: "welcome", roomKg };
-  const origin = home ?? chosen.location;
-  const alternatives = all
-    .filter((d) => d.id !== chosen.id && needKg <= roomKgScraps(d) + SLACK_KG)
-    .map((d) => ({ digester: d, distanceM: haversineM(origin, d.location) as number }))
-    .sort((a, b) => a.distanceM - b.distanceM);
-  const best = alternatives[0];
+  const decision = decideWelcome({
+    chosen: candidate(chosen),
+    all: all.map(candidate),
+    loadKgVs: dropOffKgVs,
+    from: home,
+  });
+  if (decision.basis === "tomorrow") return { kind: "welcome", roomKg: roomKgScraps(chosen) };
+  const roomKg = decision.roomKgVs / DEFAULT_KG_VS_PER_FRESH_KG;
+  if (decision.welcomed) return { kind: "welcome", roomKg };
+  if (decision.reason === "closed") return { kind: "closed" };
+  const best = decision.alternative;
   return {
     kind: "full",
     roomKg,
-    alternative: best ? { digester: best.digester, distanceM: home ? best.distanceM : null } : null,
+    noRoomLeft: decision.reason === "noRoomLeft",
+    alternative: best ? { digester: best.digester.summary, distanceM: home ? best.distanceM : null } : null,
   };
 }
 
